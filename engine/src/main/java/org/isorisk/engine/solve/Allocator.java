@@ -1,0 +1,116 @@
+package org.isorisk.engine.solve;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.error.NoSolutionException;
+import org.isorisk.engine.model.AllocationRequest;
+import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.LinearConstraint;
+import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.MertonScalars;
+import org.isorisk.engine.model.Method;
+import org.isorisk.engine.model.Objective;
+import org.isorisk.engine.model.Relation;
+import org.isorisk.engine.model.Solution;
+
+/**
+ * The one front door for solving: picks the method (closed form when only equalities apply, the bounded
+ * methods otherwise), runs it, and returns a solution that says which method it used and carries its
+ * certificate.
+ */
+public final class Allocator {
+    private Allocator() {
+    }
+
+    /** Note added when no bounds apply. */
+    public static final String SHORTS_NOTE = "Only the budget (and any target or fixed weights) apply: short positions "
+            + "(negative weights) are allowed. Give a policy file to add bounds.";
+
+    /**
+     * Solves one allocation problem.
+     *
+     * @throws NoSolutionException when the problem has no meaningful solution (infeasible, constraint
+     *                             qualification fails, Σ not positive definite)
+     * @throws InputException      when the request cannot be solved as asked (e.g. closed form with bounds)
+     */
+    public static Solution solve(AllocationRequest r) {
+        Mandate m = r.mandate();
+        Method method = r.method();
+        if (method == Method.AUTO) {
+            method = m.equalitiesOnly() ? Method.CLOSED_FORM : Method.NUMERICAL;
+        }
+        if (method == Method.CLOSED_FORM) {
+            if (!m.equalitiesOnly()) {
+                throw InputException.of("the closed form applies only when every constraint is an equality, but the "
+                                + "policy has bounds or inequality limits")
+                        .fix("drop --method closed-form (auto picks a bounded method) or remove the bounds").build();
+            }
+            return closedForm(Factored.of(r.universe()), m, r.objective(), r);
+        }
+        throw new NoSolutionException(NoSolutionException.Reason.NOT_CONVERGED,
+                "method " + method.label() + " is not available in this build", List.of());
+    }
+
+    /** Closed-form solve on an already factored universe (for sweeps sharing one factorisation). */
+    public static Solution closedForm(Factored f, Mandate m, Objective objective, AllocationRequest r) {
+        AssetUniverse u = f.universe();
+        List<LinearConstraint> rows = new ArrayList<>(m.rows(u.assets()));
+        List<String> notes = new ArrayList<>();
+        notes.add(SHORTS_NOTE);
+        if (objective instanceof Objective.TargetReturn t) {
+            rows.add(new LinearConstraint("target_return", u.expectedReturns(), Relation.EQUAL, t.target()));
+        } else if (objective instanceof Objective.Tangency t) {
+            double target = tangencyReturn(f, m, rows, t.riskFree(), r);
+            rows.add(new LinearConstraint("target_return", u.expectedReturns(), Relation.EQUAL, target));
+            notes.add(String.format(Locale.ROOT, "Tangency portfolio for a risk-free rate of %s: the frontier point "
+                    + "with the highest Sharpe ratio, found as the minimum-variance portfolio at its return.",
+                    org.isorisk.engine.explain.Explain.percent(t.riskFree())));
+        }
+        return ClosedForm.solve(f, rows, r.settings(), notes);
+    }
+
+    /**
+     * Return of the tangency portfolio on the frontier of the equality rows: maximises {@code (m − r_f)/σ*(m)}
+     * where {@code V*(m) = (αm² − 2βm + γ)} along the closed-form frontier; refuses when the risk-free rate is at
+     * or above the minimum-variance portfolio's return.
+     */
+    private static double tangencyReturn(Factored f, Mandate m, List<LinearConstraint> rows, double rf,
+                                         AllocationRequest r) {
+        // V*(t) is quadratic in the target t. Sample it at three targets to read its coefficients exactly.
+        AssetUniverse u = f.universe();
+        double[] mu = u.expectedReturns();
+        double[] t = {-1, 0, 1};
+        double[] v = new double[3];
+        for (int i = 0; i < 3; i++) {
+            List<LinearConstraint> withTarget = new ArrayList<>(rows);
+            withTarget.add(new LinearConstraint("target_return", mu, Relation.EQUAL, t[i]));
+            v[i] = ClosedForm.solve(f, withTarget, r.settings(), List.of()).variance();
+        }
+        double alpha = (v[2] + v[0] - 2 * v[1]) / 2;
+        double beta = -(v[2] - v[0]) / 4;
+        double gamma = v[1];
+        double mMin = beta / alpha; // return of the minimum-variance portfolio under these equalities
+        if (!(rf < mMin)) {
+            throw new NoSolutionException(NoSolutionException.Reason.INFEASIBLE, String.format(Locale.ROOT,
+                    "no tangency portfolio: the risk-free rate %s is at or above the minimum-variance portfolio's "
+                            + "return %s, so no frontier portfolio earns a positive excess return per unit of risk on "
+                            + "the efficient branch; fix: use a risk-free rate below %s",
+                    org.isorisk.engine.explain.Explain.percent(rf), org.isorisk.engine.explain.Explain.percent(mMin),
+                    org.isorisk.engine.explain.Explain.percent(mMin)), List.of("risk_free"));
+        }
+        // d/dm [(m − rf)/sqrt(V(m))] = 0  ⇔  V(m) = (m − rf) V'(m)/2  ⇔  m = (γ − β rf)/(β − α rf).
+        return (gamma - beta * rf) / (beta - alpha * rf);
+    }
+
+    /** Merton's (1972) frontier scalars A, B, C, D for the universe (budget-only frontier). */
+    public static MertonScalars merton(AssetUniverse u, double budget) {
+        return ClosedForm.merton(Factored.of(u), budget);
+    }
+
+    /** Merton's scalars on an already factored universe. */
+    public static MertonScalars merton(Factored f, double budget) {
+        return ClosedForm.merton(f, budget);
+    }
+}
