@@ -1,0 +1,180 @@
+package org.isorisk.engine.chart;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.function.Supplier;
+import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.model.Frontier;
+import org.isorisk.engine.model.MertonScalars;
+import org.isorisk.engine.model.Multiplier;
+import org.knowm.xchart.XYChart;
+import org.knowm.xchart.XYChartBuilder;
+import org.knowm.xchart.XYSeries;
+
+/**
+ * The marginal risk of the return target: the target's shadow price in volatility units, {@code ∂σ*∂m}
+ * (the {@code volatility_per_unit} of {@code target_return}), against the target. The y axis reads it as the
+ * volatility a committee buys with each further step of target return (first order): {@code ∂σ*∂m × step}.
+ */
+final class MarginalRiskChart {
+    private MarginalRiskChart() {
+    }
+
+    static final String MANDATE = "mandate";
+    static final String UNCONSTRAINED = "unconstrained";
+    static final String CORNERS = "corners";
+    static final String TARGET = "target_return";
+
+    static Figure build(Frontier f, ChartContext ctx, ChartSettings s) {
+        FrontierPath path = FrontierPath.of(f);
+        MertonScalars ms = f.unconstrained();
+        boolean mandate = path.size() > 0 && !path.closedFormOnly(f);
+        int start = path.size() == 0 ? 0 : path.minimumVolatilityIndex();
+        List<Double> mx = new ArrayList<>();
+        List<Double> my = new ArrayList<>();
+        List<FrontierPath.Step> cornerSteps = new ArrayList<>();
+        for (int j = start; j < path.size(); j++) {
+            FrontierPath.Step st = path.steps.get(j);
+            Optional<Multiplier> mult = st.portfolio().multiplier(TARGET);
+            if (mult.isPresent() && Double.isFinite(mult.get().volatilityPerUnit())) {
+                mx.add(st.m());
+                my.add(mult.get().volatilityPerUnit());
+            }
+            if (st.corner() != null) {
+                cornerSteps.add(st);
+            }
+        }
+        if (path.size() == 1) {
+            throw InputException.of("the frontier has a single portfolio, so the marginal risk of the return target "
+                    + "cannot be drawn against the target").fix("compute at least two frontier points").build();
+        }
+        if (mandate && mx.size() < 2) {
+            throw InputException.of("the frontier's portfolios carry fewer than two return-target multipliers "
+                    + "(constraint 'target_return'), so there is no marginal-risk curve to draw")
+                    .fix("solve the frontier points with a return target").build();
+        }
+        double lo;
+        double hi;
+        if (!mx.isEmpty()) {
+            lo = mx.get(0);
+            hi = mx.get(mx.size() - 1);
+        } else if (ms != null && Double.isFinite(f.maxReturn()) && f.maxReturn() > ms.minimumVarianceReturn()) {
+            lo = ms.minimumVarianceReturn();
+            hi = f.maxReturn();
+        } else {
+            throw InputException.of("the frontier is empty: no portfolios carry a return-target multiplier and no "
+                    + "finite target range is known").fix("compute the frontier first").build();
+        }
+        if (ms != null) {
+            lo = Math.min(lo, ms.minimumVarianceReturn());
+        }
+
+        XYChart chart = new XYChartBuilder().width(s.width()).height(s.height())
+                .title("Marginal risk of the return target")
+                .xAxisTitle("Target expected return (annualised, %)")
+                .yAxisTitle("Extra volatility per +" + Style.percent(s.marginalStep(), 2) + " of target (%)").build();
+        Style.apply(chart.getStyler());
+        chart.getStyler().setxAxisTickLabelsFormattingFunction(Style.percentTicks(2));
+        double step = s.marginalStep();
+        chart.getStyler().setyAxisTickLabelsFormattingFunction(v -> Style.percentTicks(3).apply(v * step));
+        chart.getStyler().setXAxisMin(lo).setXAxisMax(hi);
+
+        double yMax = 0;
+        double yMin = 0;
+        if (ms != null) {
+            double m0 = ms.minimumVarianceReturn();
+            int k = FrontierChart.HYPERBOLA_POINTS;
+            double[] xs = new double[k];
+            double[] ys = new double[k];
+            for (int i = 0; i < k; i++) {
+                double m = m0 + (hi - m0) * i / (k - 1);
+                xs[i] = m;
+                double sigma = ms.volatility(m);
+                // ∂σ*/∂m = (∂V*/∂m)/(2σ*), with ∂V*/∂m from Merton's scalars; 0 at the minimum-variance portfolio.
+                ys[i] = sigma > 0 ? ms.returnMultiplier(m) / (2 * sigma) : 0;
+            }
+            XYSeries u = FrontierChart.line(chart, UNCONSTRAINED, xs, ys, Palette.BLUE, Style.dashed(2f, 8f, 4f));
+            u.setLabel("Unconstrained (budget only, short positions allowed)");
+            for (double y : ys) {
+                yMax = Math.max(yMax, y);
+                yMin = Math.min(yMin, y);
+            }
+        }
+        if (mandate) {
+            double[] xs = mx.stream().mapToDouble(Double::doubleValue).toArray();
+            double[] ys = my.stream().mapToDouble(Double::doubleValue).toArray();
+            XYSeries m = FrontierChart.line(chart, MANDATE, xs, ys, Palette.BLACK, Style.solid(2.6f));
+            m.setLabel("Mandate (efficient branch)");
+            for (double y : ys) {
+                yMax = Math.max(yMax, y);
+                yMin = Math.min(yMin, y);
+            }
+            List<Double> cx = new ArrayList<>();
+            List<Double> cy = new ArrayList<>();
+            for (FrontierPath.Step st : cornerSteps) {
+                Optional<Multiplier> mult = st.portfolio().multiplier(TARGET);
+                if (mult.isPresent() && Double.isFinite(mult.get().volatilityPerUnit())) {
+                    cx.add(st.m());
+                    cy.add(mult.get().volatilityPerUnit());
+                }
+            }
+            if (!cx.isEmpty()) {
+                XYSeries c = FrontierChart.points(chart, CORNERS, cx.stream().mapToDouble(Double::doubleValue).toArray(),
+                        cy.stream().mapToDouble(Double::doubleValue).toArray(), Palette.BLACK, new Mark(Mark.Kind.DIAMOND, 8, null, 0));
+                c.setLabel("Corner portfolios");
+            }
+        }
+        double span = Math.max(yMax - yMin, 1e-6);
+        chart.getStyler().setYAxisMin(yMin < 0 ? yMin - 0.05 * span : 0.0);
+        chart.getStyler().setYAxisMax(yMax + 0.08 * span);
+
+        List<String> notices = new ArrayList<>();
+        notices.add(String.format(Locale.ROOT, "The curves are \u2202\u03c3*/\u2202m, the return target's shadow price "
+                + "in volatility units; the axis reads it as the volatility added by raising the target by %s "
+                + "(first order).", Style.percent(step, 2)));
+        List<Supplier<String>> later = new ArrayList<>();
+        if (mandate && !cornerSteps.isEmpty()) {
+            List<FrontierPath.Step> efficient = path.steps.subList(start, path.size());
+            List<CornerChanges.Change> changes = CornerChanges.of(efficient);
+            List<Guides.Guide> guides = new ArrayList<>();
+            List<String> texts = new ArrayList<>();
+            List<Integer> candidates = new ArrayList<>();
+            for (int j = 0; j < cornerSteps.size(); j++) {
+                String label = changes.get(j).label(cornerSteps.get(j).corner());
+                texts.add(label);
+                if (j > 0 && j < cornerSteps.size() - 1 && !label.isEmpty()) {
+                    candidates.add(j);
+                }
+            }
+            // More corners than the limit: label an evenly spread subset rather than the first ones.
+            java.util.Set<Integer> chosen = new java.util.HashSet<>();
+            int limit = s.cornerLabelLimit();
+            for (int q = 0; q < candidates.size(); q++) {
+                if (candidates.size() <= limit || (long) q * limit / candidates.size()
+                        != (long) (q + 1) * limit / candidates.size()) {
+                    chosen.add(candidates.get(q));
+                }
+            }
+            int labellable = candidates.size();
+            int labelled = chosen.size();
+            for (int j = 0; j < cornerSteps.size(); j++) {
+                FrontierPath.Step st = cornerSteps.get(j);
+                double anchor = st.portfolio().multiplier(TARGET).map(Multiplier::volatilityPerUnit)
+                        .orElse(Double.NaN);
+                guides.add(new Guides.Guide(st.m(), chosen.contains(j) ? texts.get(j) : null, anchor));
+            }
+            Guides g = new Guides(guides, Palette.alpha(Palette.BLACK, 0.35));
+            chart.addAnnotation(g);
+            int limited = labellable - labelled;
+            int total = labellable;
+            later.add(() -> {
+                int dropped = g.omitted() + limited;
+                return dropped > 0 ? String.format(Locale.ROOT, "%d of %d corner labels left out so that the rest stay "
+                        + "legible; the frontier table lists every corner.", dropped, total) : null;
+            });
+        }
+        return new Figure(Figure.Kind.MARGINAL_RISK, chart, s, ctx, notices, later, true);
+    }
+}
