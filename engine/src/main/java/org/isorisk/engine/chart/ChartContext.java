@@ -8,7 +8,8 @@ import org.isorisk.engine.error.InputException;
  * Where a chart's numbers come from, printed in its footnote beside the caution: the date the assumptions refer
  * to, a short hash of the input files (so a printed chart can be matched to its inputs) and the fund's name.
  *
- * @param asOf      the as-of date of the capital-market assumptions
+ * @param asOf      the as-of date of the capital-market assumptions; null when the inputs give none (the footnote
+ *                  then says so)
  * @param inputHash a hash of the inputs, hex; the footnote shows its first {@link #SHORT_HASH} characters
  * @param fundName  the fund's name for titles; blank or null for none
  */
@@ -18,10 +19,6 @@ public record ChartContext(LocalDate asOf, String inputHash, String fundName) {
     public static final int SHORT_HASH = 12;
 
     public ChartContext {
-        if (asOf == null) {
-            throw InputException.of("a chart needs the as-of date of its assumptions")
-                    .fix("give the date the expected returns and covariance refer to").build();
-        }
         if (inputHash == null || !inputHash.matches("[0-9a-fA-F]{6,}")) {
             throw InputException.of("a chart needs a hexadecimal hash of its inputs (at least 6 digits)")
                     .value(inputHash).fix("hash the input files, e.g. with SHA-256").build();
@@ -38,6 +35,7 @@ public record ChartContext(LocalDate asOf, String inputHash, String fundName) {
     /** The provenance line of the footnote. */
     public String provenanceLine() {
         String fund = fundName.isEmpty() ? "" : fundName + " \u00b7 ";
-        return fund + "assumptions as of " + asOf + " \u00b7 inputs #" + shortHash();
+        String date = asOf == null ? "as-of date of the assumptions not given" : "assumptions as of " + asOf;
+        return fund + date + " \u00b7 inputs #" + shortHash();
     }
 }

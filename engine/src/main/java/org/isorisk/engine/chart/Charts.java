@@ -122,17 +122,16 @@ public final class Charts {
             ImageWriteParam param = writer.getDefaultWriteParam();
             IIOMetadata meta = writer.getDefaultImageMetadata(
                     ImageTypeSpecifier.createFromBufferedImageType(BufferedImage.TYPE_INT_RGB), param);
-            double dotsPerMm = 72.0 * scale / 25.4;
-            IIOMetadataNode h = new IIOMetadataNode("HorizontalPixelSize");
-            h.setAttribute("value", Double.toString(1 / dotsPerMm));
-            IIOMetadataNode v = new IIOMetadataNode("VerticalPixelSize");
-            v.setAttribute("value", Double.toString(1 / dotsPerMm));
-            IIOMetadataNode dim = new IIOMetadataNode("Dimension");
-            dim.appendChild(h);
-            dim.appendChild(v);
-            IIOMetadataNode root = new IIOMetadataNode("javax_imageio_1.0");
-            root.appendChild(dim);
-            meta.mergeTree("javax_imageio_1.0", root);
+            // The resolution goes into the PNG's own pHYs chunk (pixels per metre): the JDK writer misreads the
+            // standard tree's HorizontalPixelSize (it takes the value as pixels per millimetre).
+            long perMetre = Math.round(72.0 * scale / 0.0254);
+            IIOMetadataNode phys = new IIOMetadataNode("pHYs");
+            phys.setAttribute("pixelsPerUnitXAxis", Long.toString(perMetre));
+            phys.setAttribute("pixelsPerUnitYAxis", Long.toString(perMetre));
+            phys.setAttribute("unitSpecifier", "meter");
+            IIOMetadataNode root = new IIOMetadataNode("javax_imageio_png_1.0");
+            root.appendChild(phys);
+            meta.mergeTree("javax_imageio_png_1.0", root);
             writer.write(null, new IIOImage(img, null, meta), param);
         } finally {
             writer.dispose();

@@ -39,13 +39,12 @@ final class FrontierPath {
         for (Solution s : f.points()) {
             all.add(new Step(s, null));
         }
+        // Corners first at equal returns; corners are all kept (the engine may list one portfolio twice at a kink,
+        // with the multipliers of each side), a sampled point that repeats a corner is dropped.
         all.sort(Comparator.comparingDouble(Step::m).thenComparing(s -> s.corner() == null));
         List<Step> out = new ArrayList<>();
         for (Step s : all) {
-            if (!out.isEmpty() && same(out.get(out.size() - 1).m(), s.m())) {
-                if (s.corner() != null && out.get(out.size() - 1).corner() == null) {
-                    out.set(out.size() - 1, s);
-                }
+            if (s.corner() == null && !out.isEmpty() && same(out.get(out.size() - 1).m(), s.m())) {
                 continue;
             }
             out.add(s);

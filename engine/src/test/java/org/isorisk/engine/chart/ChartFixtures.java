@@ -91,6 +91,18 @@ final class ChartFixtures {
         return new AssetUniverse(names, mu, s);
     }
 
+    private static Frontier sampleFrontier;
+
+    /** The sample fund's bounded frontier on 16 targets, corners at the grid points where the binding set changes. */
+    static synchronized Frontier sampleFrontier() {
+        if (sampleFrontier == null) {
+            AssetUniverse u = sampleFund();
+            double[][] b = sampleBounds(u);
+            sampleFrontier = boundedFrontier(u, b[0], b[1], 16, false);
+        }
+        return sampleFrontier;
+    }
+
     static ChartContext context() {
         return new ChartContext(LocalDate.of(2025, 6, 30), "3f9a0c1d7e5b2a4c6d8e", "Example Pension Fund (invented)");
     }
