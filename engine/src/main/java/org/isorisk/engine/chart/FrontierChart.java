@@ -242,7 +242,7 @@ final class FrontierChart {
         legend.setLabel(named ? "Assets" : "Assets (" + n + ", unlabelled)");
         if (!named) {
             notices.add(String.format(Locale.ROOT, "%d assets are drawn as unlabelled points (names are shown up to "
-                    + "%d assets); see the weights table for names.", n, s.assetLabelLimit()));
+                    + "%d assets); the tables list them by name.", n, s.assetLabelLimit()));
         }
         chart.addAnnotation(labels);
         Supplier<String> omitted = () -> labels.painted() && labels.omitted() > 0

@@ -126,11 +126,25 @@ final class MarginalRiskChart {
                 c.setLabel("Corner portfolios");
             }
         }
+        List<String> notices = new ArrayList<>();
+        // A steep rise at the maximum-return end would flatten everything else: then the axis stops at twice the
+        // 85th percentile of the mandate curve and the chart says how high the curve goes.
+        if (my.size() >= 5) {
+            double[] sorted = my.stream().mapToDouble(Double::doubleValue).sorted().toArray();
+            double p85 = sorted[(int) Math.floor(0.85 * (sorted.length - 1))];
+            if (p85 > 0 && yMax > 3 * p85) {
+                int at = my.indexOf(sorted[sorted.length - 1]);
+                notices.add(String.format(Locale.ROOT, "Near the maximum-return end the curve rises to %s per +%s "
+                                + "of target (at a target of %s), above the top of the chart.",
+                        Style.percent(sorted[sorted.length - 1] * step, 2), Style.percent(step, 2),
+                        Style.percent(mx.get(at), 2)));
+                yMax = 2 * p85;
+            }
+        }
         double span = Math.max(yMax - yMin, 1e-6);
         chart.getStyler().setYAxisMin(yMin < 0 ? yMin - 0.05 * span : 0.0);
         chart.getStyler().setYAxisMax(yMax + 0.08 * span);
 
-        List<String> notices = new ArrayList<>();
         notices.add(String.format(Locale.ROOT, "The curves are \u2202\u03c3*/\u2202m, the return target's shadow price "
                 + "in volatility units; the axis reads it as the volatility added by raising the target by %s "
                 + "(first order).", Style.percent(step, 2)));

@@ -82,7 +82,8 @@ final class RiskContributionChart {
         chart.getStyler().setXAxisMaxLabelCount(Math.max(2, rows));
         chart.getStyler().setPlotContentSize(0.97);
         chart.getStyler().setXAxisDecimalPattern("0.0");
-        chart.getStyler().setxAxisTickLabelsFormattingFunction(Style.percentTicks(1));
+        // one decimal everywhere: XChart writes the bar labels with the x axis's formatter too
+        chart.getStyler().setxAxisTickLabelsFormattingFunction(v -> Style.percent(v, 1));
         chart.getStyler().setPlotGridHorizontalLinesVisible(false);
         chart.getStyler().setAvailableSpaceFill(0.8);
         chart.getStyler().setLabelsVisible(true);

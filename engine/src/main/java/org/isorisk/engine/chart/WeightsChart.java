@@ -27,7 +27,8 @@ final class WeightsChart {
 
     static final String BAND_PREFIX = "band:";
     static final String OTHER = "band:other";
-    static final String CORNER_GUIDE = "corner-guide";
+    /** Weights above this below zero are rounding noise of a weight held at 0, not a short position. */
+    static final double SHORT_NOISE = 1e-9;
 
     /** The assets (by index) that get a band of their own, most important first; the rest form "other". */
     record Grouping(List<Integer> own, List<Integer> other, double otherPeak) {
@@ -129,7 +130,7 @@ final class WeightsChart {
             fills.add(Palette.LIGHT_GREY);
             boolean anyNeg = false;
             for (double v : neg) {
-                anyNeg |= v < 0;
+                anyNeg |= v < -SHORT_NOISE;
             }
             if (anyNeg) {
                 layers.add(neg);

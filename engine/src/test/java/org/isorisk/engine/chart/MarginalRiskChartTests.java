@@ -104,6 +104,27 @@ class MarginalRiskChartTests {
     }
 
     @Test
+    void aSteepRiseAtTheMaximumReturnEndIsCappedAndNamed() {
+        List<String> assets = List.of("A", "B");
+        List<Corner> corners = new ArrayList<>();
+        double[] slope = {0.0, 0.1, 0.2, 0.3, 0.4, 0.5, 6.0}; // ∂σ*/∂m at the corners
+        for (int j = 0; j < slope.length; j++) {
+            Solution s = solution(assets, new double[] {1 - 0.1 * j, 0.1 * j}, 0.03 + 0.005 * j, List.of());
+            List<Multiplier> mult = new ArrayList<>(s.multipliers());
+            mult.set(1, new Multiplier("target_return", 2 * 0.1 * slope[j], slope[j], true));
+            corners.add(corner(new Solution(s.method(), assets, s.weights(), s.expectedReturn(), s.variance(),
+                    s.volatility(), mult, s.certificate(), List.of())));
+        }
+        Frontier f = new Frontier(corners, List.of(), null, 0.03, 0.06);
+        Figure fig = Charts.marginalRisk(f, ChartFixtures.context(), S);
+        XYChart c = (XYChart) fig.chart();
+        assertEquals(6.0, c.getSeries(MarginalRiskChart.MANDATE).getYData()[6], 0.0); // the data keep the value
+        assertTrue(c.getStyler().getYAxisMax() < 1.2, "axis capped at twice the 85th percentile");
+        assertTrue(fig.notices().contains("Near the maximum-return end the curve rises to 1.50 % per +0.25 % of "
+                + "target (at a target of 6.00 %), above the top of the chart."), fig.notices().toString());
+    }
+
+    @Test
     void portfoliosWithoutAReturnTargetMultiplierCannotMakeACurve() {
         List<String> assets = List.of("A", "B");
         Solution a = solution(assets, new double[] {0.5, 0.5}, 0.03, List.of());
