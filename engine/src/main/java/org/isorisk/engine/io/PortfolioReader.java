@@ -95,8 +95,8 @@ public final class PortfolioReader {
             }
         }
         if (!missing.isEmpty()) {
-            warnings.add(t.source().path() + ": " + missing.size() + " asset" + (missing.size() == 1 ? " is" : "s are")
-                    + " not listed and count as weight 0: " + String.join(", ", missing));
+            warnings.add(t.source().path() + ": " + missing.size() + " asset" + (missing.size() == 1 ? " is not listed and counts"
+                    : "s are not listed and count") + " as weight 0: " + String.join(", ", missing));
         }
         return new PortfolioFile(universe, weights, marketValue, t.source(), warnings);
     }
