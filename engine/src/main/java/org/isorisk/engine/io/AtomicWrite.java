@@ -8,6 +8,7 @@ import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
 import java.util.Comparator;
 import java.util.stream.Stream;
 import org.isorisk.engine.error.InputException;
@@ -50,8 +51,9 @@ public final class AtomicWrite {
         }
         Path tmp = null;
         try {
-            tmp = Files.createTempFile(parent, "." + abs.getFileName() + ".", ".tmp");
-            try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+            tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
+            try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8, StandardOpenOption.CREATE_NEW,
+                    StandardOpenOption.WRITE)) {
                 body.write(w);
             }
             move(tmp, abs);
@@ -95,13 +97,12 @@ public final class AtomicWrite {
         Path staging = null;
         Path old = null;
         try {
-            staging = Files.createTempDirectory(parent, "." + abs.getFileName() + ".tmp-");
+            staging = Files.createDirectory(parent.resolve("." + abs.getFileName() + ".tmp-" + unique()));
             Files.writeString(staging.resolve(MARKER), "written by isorisk; this folder is replaced as a whole\n",
                     StandardCharsets.UTF_8);
             body.fill(staging);
             if (exists) {
-                old = Files.createTempDirectory(parent, "." + abs.getFileName() + ".old-");
-                Files.delete(old);
+                old = parent.resolve("." + abs.getFileName() + ".old-" + unique());
                 move(abs, old);
             }
             move(staging, abs);
@@ -113,6 +114,14 @@ public final class AtomicWrite {
             deleteTree(staging);
             deleteTree(old);
         }
+    }
+
+    /**
+     * A name part no other run uses at the same time. Temporary files are created by name rather than with
+     * {@code Files.createTemp*}, so that results get the user's usual permissions (umask), not owner-only.
+     */
+    private static String unique() {
+        return ProcessHandle.current().pid() + "-" + Long.toHexString(System.nanoTime());
     }
 
     private static Path parentOf(Path abs, Path target) {

@@ -34,7 +34,7 @@ record NamedMatrix(CsvTable table, List<String> names, double[][] values, int[] 
             if (!columns.containsKey(names.get(i))) {
                 InputException.Builder b = t.error("the row's asset has no column of the same name in the header")
                         .row(t.rows().get(i).number()).asset(names.get(i));
-                throw NamedValues.hint(b, names.get(i), columnNames,
+                throw Names.hint(b, names.get(i), columnNames,
                         "the matrix needs one row and one column per asset, with the same names").build();
             }
         }
@@ -42,7 +42,7 @@ record NamedMatrix(CsvTable table, List<String> names, double[][] values, int[] 
             if (!names.contains(c)) {
                 InputException.Builder b = t.error("the column's asset has no row of the same name")
                         .row(t.headerRow()).column(c).asset(c);
-                throw NamedValues.hint(b, c, names,
+                throw Names.hint(b, c, names,
                         "the matrix needs one row and one column per asset, with the same names").build();
             }
         }

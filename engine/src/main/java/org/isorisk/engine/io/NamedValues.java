@@ -4,7 +4,6 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
-import org.isorisk.engine.error.InputException;
 
 /**
  * One number per asset, read from a table with a column {@code asset} and a value column, in file order.
@@ -62,21 +61,5 @@ record NamedValues(CsvTable table, List<String> names, double[] values, int[] ro
     /** The column's header name. */
     String columnName() {
         return table.header().get(column);
-    }
-
-    /** A name of {@code known} that equals {@code name} ignoring case and spaces, for "did you mean" hints. */
-    static String closest(String name, List<String> known) {
-        String key = name.replaceAll("\\s+", "").toLowerCase(java.util.Locale.ROOT);
-        for (String k : known) {
-            if (k.replaceAll("\\s+", "").toLowerCase(java.util.Locale.ROOT).equals(key)) {
-                return k;
-            }
-        }
-        return null;
-    }
-
-    static InputException.Builder hint(InputException.Builder b, String name, List<String> known, String otherwise) {
-        String c = closest(name, known);
-        return b.fix(c != null ? "did you mean '" + c + "'? Names must match exactly" : otherwise);
     }
 }

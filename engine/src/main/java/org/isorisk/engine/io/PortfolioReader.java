@@ -55,7 +55,7 @@ public final class PortfolioReader {
             CsvRow r = t.rows().get(k);
             String name = names.get(k);
             if (!universe.contains(name)) {
-                throw NamedValues.hint(t.error("the asset is not in the asset universe (the expected-returns and "
+                throw Names.hint(t.error("the asset is not in the asset universe (the expected-returns and "
                                 + "covariance files)").row(r.number()).column(t.header().get(a)).asset(name), name,
                         universe, "use the names of the expected-returns file, or delete the row").build();
             }

@@ -14,11 +14,14 @@ import org.isorisk.engine.error.InputException;
  * @param inputs     the files read, in the order read
  * @param asOf       the as-of date, or null when neither {@code --as-of} nor any file gave one
  * @param asOfSource where the date came from: {@code --as-of}, a file name, or {@code none}
+ * @param scenario   what the inputs describe, from the first {@code # scenario:} line of a file; null when none
  */
-public record Provenance(List<SourceFile> inputs, LocalDate asOf, String asOfSource) {
+public record Provenance(List<SourceFile> inputs, LocalDate asOf, String asOfSource, String scenario) {
 
     /** The metadata key that carries a file's own as-of date: {@code # as_of: 2025-06-30} above the header. */
     public static final String AS_OF_KEY = "as_of";
+    /** The metadata key that says what the inputs describe: {@code # scenario: ...} above the header. */
+    public static final String SCENARIO_KEY = "scenario";
 
     public Provenance {
         inputs = List.copyOf(inputs);
@@ -36,7 +39,7 @@ public record Provenance(List<SourceFile> inputs, LocalDate asOf, String asOfSou
     public Provenance withInput(SourceFile f) {
         List<SourceFile> all = new ArrayList<>(inputs);
         all.add(f);
-        return new Provenance(all, asOf, asOfSource);
+        return new Provenance(all, asOf, asOfSource, scenario);
     }
 
     /** One line for people: {@code expected_returns.csv (sha256 1a2b3c4d5e6f), ...; as of 2025-06-30}. */
@@ -59,8 +62,12 @@ public record Provenance(List<SourceFile> inputs, LocalDate asOf, String asOfSou
         String from = option == null ? null : "--as-of";
         List<String> seen = new ArrayList<>();
         boolean differ = false;
+        String scenario = null;
         for (CsvTable t : tables) {
             files.add(t.source());
+            if (scenario == null && t.meta(SCENARIO_KEY).isPresent()) {
+                scenario = t.meta(SCENARIO_KEY).get().value();
+            }
             Optional<CsvTable.Metadata> m = t.meta(AS_OF_KEY);
             if (m.isEmpty()) {
                 continue;
@@ -78,7 +85,7 @@ public record Provenance(List<SourceFile> inputs, LocalDate asOf, String asOfSou
             warnings.add("the input files give different as-of dates (" + String.join(", ", seen) + "); results use "
                     + date + " from " + from + " (pass --as-of to choose)");
         }
-        return new Provenance(files, date, from == null ? "none" : from);
+        return new Provenance(files, date, from == null ? "none" : from, scenario);
     }
 
     /** Parses an ISO date (YYYY-MM-DD) given in a file or an option. */

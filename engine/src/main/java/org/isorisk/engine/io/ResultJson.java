@@ -114,6 +114,9 @@ public final class ResultJson {
             o.put("as_of", p.asOf().toString());
         }
         o.put("as_of_source", p.asOfSource());
+        if (p.scenario() != null) {
+            o.put("scenario", p.scenario());
+        }
         return o;
     }
 
@@ -171,6 +174,13 @@ public final class ResultJson {
         number(o, "largest_eigenvalue", s.largestEigenvalue());
         number(o, "condition_number", s.conditionNumber());
         o.put("eigenvalues_exact", s.exact());
+        ArrayNode per = o.putArray("per_asset");
+        for (int i = 0; i < s.names().size(); i++) {
+            ObjectNode e = per.addObject();
+            e.put("asset", s.names().get(i));
+            number(e, "expected_return", s.expectedReturns()[i]);
+            number(e, "volatility", s.volatilities()[i]);
+        }
         return o;
     }
 

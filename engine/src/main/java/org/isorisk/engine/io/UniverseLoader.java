@@ -153,7 +153,7 @@ public final class UniverseLoader {
                 String other = orderFile.table().source().path();
                 InputException.Builder b = t.error("the asset is not in the " + orderFile.table().source().role()
                         .replace('-', ' ') + " file (" + other + ")").row(rows[k]).asset(names.get(k));
-                throw NamedValues.hint(b, names.get(k), order, "add it to " + other + ", or delete it from "
+                throw Names.hint(b, names.get(k), order, "add it to " + other + ", or delete it from "
                         + t.source().path()).build();
             }
         }

@@ -17,10 +17,30 @@ import org.isorisk.engine.model.AssetUniverse;
  * @param largestEigenvalue  largest eigenvalue of Σ
  * @param conditionNumber    {@code λmax/λmin}
  * @param exact              true when the eigenvalues come from a full eigendecomposition
+ * @param names              asset names
+ * @param expectedReturns    each asset's expected return, decimal (copied)
+ * @param volatilities       each asset's volatility {@code sqrt(Σii)}, decimal (copied)
  */
 public record AssumptionSummary(int assets, Extreme lowestVolatility, Extreme highestVolatility, Extreme lowestReturn,
                                 Extreme highestReturn, double smallestEigenvalue, double largestEigenvalue,
-                                double conditionNumber, boolean exact) {
+                                double conditionNumber, boolean exact, List<String> names, double[] expectedReturns,
+                                double[] volatilities) {
+
+    public AssumptionSummary {
+        names = List.copyOf(names);
+        expectedReturns = expectedReturns.clone();
+        volatilities = volatilities.clone();
+    }
+
+    @Override
+    public double[] expectedReturns() {
+        return expectedReturns.clone();
+    }
+
+    @Override
+    public double[] volatilities() {
+        return volatilities.clone();
+    }
 
     /**
      * An asset and its value.
@@ -54,9 +74,13 @@ public record AssumptionSummary(int assets, Extreme lowestVolatility, Extreme hi
                 hr = i;
             }
         }
+        double[] vols = new double[n];
+        for (int i = 0; i < n; i++) {
+            vols[i] = Math.sqrt(u.covariance(i, i));
+        }
         return new AssumptionSummary(n, new Extreme(names.get(lv), Math.sqrt(u.covariance(lv, lv))),
                 new Extreme(names.get(hv), Math.sqrt(u.covariance(hv, hv))),
                 new Extreme(names.get(lr), u.expectedReturn(lr)), new Extreme(names.get(hr), u.expectedReturn(hr)),
-                sp.smallest(), sp.largest(), sp.conditionNumber(), sp.exact());
+                sp.smallest(), sp.largest(), sp.conditionNumber(), sp.exact(), names, u.expectedReturns(), vols);
     }
 }

@@ -45,6 +45,17 @@ public final class RiskAnalysis {
         return new TrackingError(active == null ? 0.0 : active.volatility(), active);
     }
 
+    /**
+     * Sharpe ratio {@code (m − r_f)/σ}: excess expected return per unit of volatility (Sharpe 1966).
+     *
+     * @param expectedReturn decimal, annualised
+     * @param volatility     decimal, annualised
+     * @param riskFree       decimal, annualised
+     */
+    public static double sharpeRatio(double expectedReturn, double volatility, double riskFree) {
+        return (expectedReturn - riskFree) / volatility;
+    }
+
     private static RiskDecomposition decomposeOrNull(AssetUniverse u, double[] w) {
         check(u, w);
         int n = w.length;
