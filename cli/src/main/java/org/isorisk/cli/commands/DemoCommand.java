@@ -49,7 +49,7 @@ public final class DemoCommand extends BaseCommand {
 
     /** The sample files, bundled in the jar from the repository's {@code sample-data/} folder. */
     public static final List<String> SAMPLE_FILES = List.of("expected_returns.csv", "covariance.csv",
-            "volatilities.csv", "correlation.csv", "holdings.csv", "README.md");
+            "volatilities.csv", "correlation.csv", "holdings.csv", "benchmark.csv", "README.md");
 
     private static final List<String> REQUIRED = List.of("expected_returns.csv", "covariance.csv", "holdings.csv");
 

@@ -66,4 +66,16 @@ class SampleDataTests {
         assertEquals(1.0, sum, Tolerances.TIGHT);
         assertTrue(h.warnings().isEmpty(), h.warnings().toString());
     }
+
+    @Test
+    void theBenchmarkListsEveryAssetAndAddsUpToOne() {
+        PortfolioFile b = PortfolioReader.read(DATA.resolve("benchmark.csv"), "benchmark", ASSETS, Units.DECIMAL);
+        double sum = 0;
+        for (double w : b.weights()) {
+            assertTrue(w > 0);
+            sum += w;
+        }
+        assertEquals(1.0, sum, Tolerances.TIGHT);
+        assertTrue(b.warnings().isEmpty(), b.warnings().toString());
+    }
 }
