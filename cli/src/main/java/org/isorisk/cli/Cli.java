@@ -16,7 +16,28 @@ public final class Cli {
      *              ({@code NO_COLOR}, the console)
      */
     public static CommandLine commandLine(PrintWriter out, PrintWriter err, boolean plain) {
+        return commandLine(out, err, plain, null);
+    }
+
+    /**
+     * The command line prepared for {@code args}: when the first argument names a command, only that command is
+     * registered. Building picocli's model of every command costs start-up time (picocli's classes predate class
+     * data sharing and are loaded and verified afresh on each run); help and unknown names still see them all.
+     */
+    public static CommandLine commandLine(PrintWriter out, PrintWriter err, boolean plain, String[] args) {
         CommandLine cl = new CommandLine(new IsoriskCommand());
+        String first = args != null && args.length > 0 ? args[0] : null;
+        Class<?> only = null;
+        for (Class<?> c : IsoriskCommand.COMMANDS) {
+            if (c.getAnnotation(CommandLine.Command.class).name().equals(first)) {
+                only = c;
+            }
+        }
+        for (Class<?> c : IsoriskCommand.COMMANDS) {
+            if (only == null || c == only) {
+                cl.addSubcommand(c.getAnnotation(CommandLine.Command.class).name(), c);
+            }
+        }
         cl.setOut(out);
         cl.setErr(err);
         if (plain) {

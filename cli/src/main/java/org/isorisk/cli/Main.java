@@ -17,7 +17,7 @@ public final class Main {
                 StandardCharsets.UTF_8), true);
         PrintWriter err = new PrintWriter(new OutputStreamWriter(new FileOutputStream(FileDescriptor.err),
                 StandardCharsets.UTF_8), true);
-        int code = Cli.commandLine(out, err, false).execute(args);
+        int code = Cli.commandLine(out, err, false, args).execute(args);
         out.flush();
         err.flush();
         System.exit(code);

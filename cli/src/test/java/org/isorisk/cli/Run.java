@@ -28,7 +28,7 @@ public record Run(int code, String out, String err) {
     public static Run of(String... args) {
         StringWriter out = new StringWriter();
         StringWriter err = new StringWriter();
-        int code = Cli.commandLine(new PrintWriter(out, true), new PrintWriter(err, true), true).execute(args);
+        int code = Cli.commandLine(new PrintWriter(out, true), new PrintWriter(err, true), true, args).execute(args);
         return new Run(code, out.toString(), err.toString());
     }
 

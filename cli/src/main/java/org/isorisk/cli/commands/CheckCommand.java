@@ -13,6 +13,7 @@ import picocli.CommandLine.Mixin;
 
 /** {@code isorisk check}: validate the assumption files and report their conditioning. */
 @Command(name = "check", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Validate the assumption files and report their conditioning.",
         description = {"Validate the assumption files (names, numbers, symmetry, positive definiteness) and report "
                 + "the number of assets, the ranges of expected returns and volatilities, the extreme eigenvalues and "
                 + "the condition number of the covariance, and any warnings."})

@@ -41,6 +41,7 @@ import picocli.CommandLine.Option;
  * of the proposal; write every result into one folder and print a summary.
  */
 @Command(name = "demo", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Run the whole job on the invented sample fund into one folder.",
         description = {"Run everything on the invented sample fund (a fictional pension scheme, illustrative numbers, "
                 + "not market data): check, minimum-variance, target-return and tangency portfolios with their shadow "
                 + "prices, risk of the current holdings and of the proposal. Results (JSON, CSV, the summary and a copy "

@@ -22,6 +22,7 @@ import picocli.CommandLine.Option;
 
 /** {@code isorisk risk}: decompose the risk of a given portfolio, optionally against a benchmark. */
 @Command(name = "risk", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Decompose the risk of a given portfolio; tracking error against a benchmark.",
         description = {"Decompose the risk of a given portfolio: volatility, each asset's marginal and component "
                 + "contribution (they add up to the volatility) and share of risk; with --benchmark, the tracking "
                 + "error and the contributions to it. --expected-returns is optional here."})

@@ -29,6 +29,7 @@ import picocli.CommandLine.Option;
 
 /** {@code isorisk solve}: one portfolio (minimum variance, a target return, or tangency) with its shadow prices. */
 @Command(name = "solve", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Solve one portfolio: minimum variance, a target return, or tangency.",
         description = {"Solve for one portfolio: the minimum-variance portfolio, the minimum-variance portfolio for a "
                 + "target return, or the tangency portfolio for a risk-free rate; with the shadow price of every "
                 + "constraint, its KKT certificate and its risk decomposition.",
