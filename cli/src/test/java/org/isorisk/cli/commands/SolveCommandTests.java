@@ -242,4 +242,22 @@ class SolveCommandTests {
             assertEquals(times.get(e.getKey()), Files.getLastModifiedTime(e.getKey()), e.getKey().toString());
         }
     }
+
+    @Test
+    void numbersAreFormattedTheSameWhateverTheDefaultLocale() {
+        java.util.Locale before = java.util.Locale.getDefault();
+        try {
+            java.util.Locale.setDefault(java.util.Locale.GERMANY);
+            Run table = Run.of("solve", "--expected-returns", mu, "--covariance", cov, "--target-return", "0.05");
+            assertTrue(table.out().contains("  Expected return  5.00 %\n"), table.out());
+            Run csv = Run.of("solve", "--expected-returns", mu, "--covariance", cov, "--target-return", "0.05",
+                    "--format", "csv");
+            CsvTable t = Csv.parse("out.csv", "weights", csv.out());
+            assertEquals(engine(Objective.targetReturn(0.05)).weight(0), t.number(t.rows().get(0), 1, null));
+            Run risk = Run.of("risk", "--covariance", cov, "--weights", dir.resolve("holdings.csv").toString());
+            assertTrue(risk.out().contains("total 2,417,050,000"), risk.out());
+        } finally {
+            java.util.Locale.setDefault(before);
+        }
+    }
 }
