@@ -33,15 +33,23 @@ public final class Kkt {
     public static Certificate certify(double[][] sigma, double[] w, List<LinearConstraint> rows, double[] rowPrices,
                                       double[] lower, double[] upper, double[] lowerPrices, double[] upperPrices,
                                       double condition, double threshold, boolean convex) {
+        return certifyProduct(multiply(sigma, w), w, rows, rowPrices, lower, upper, lowerPrices, upperPrices,
+                condition, threshold, convex);
+    }
+
+    /**
+     * The same certificate from an already computed {@code Σw} (which the caller also needs, e.g. for the
+     * variance), so that one product serves both.
+     *
+     * @param sigmaW {@code Σw} computed from the full covariance and the candidate weights (not modified)
+     */
+    static Certificate certifyProduct(double[] sigmaW, double[] w, List<LinearConstraint> rows, double[] rowPrices,
+                                      double[] lower, double[] upper, double[] lowerPrices, double[] upperPrices,
+                                      double condition, double threshold, boolean convex) {
         int n = w.length;
         double[] grad = new double[n];
         for (int i = 0; i < n; i++) {
-            double s = 0;
-            double[] r = sigma[i];
-            for (int j = 0; j < n; j++) {
-                s += r[j] * w[j];
-            }
-            grad[i] = 2 * s;
+            grad[i] = 2 * sigmaW[i];
         }
         double[] residual = grad.clone();
         double[] scale = new double[n];
@@ -97,5 +105,30 @@ public final class Kkt {
         }
         double unit = worstScale > 0 ? worstScale : 1;
         return new Certificate(worstResidual / unit, primal, dual / unit, comp / unit, condition, threshold, convex);
+    }
+
+    /** {@code Σw} over the full matrix, four partial sums per row (independent chains the processor overlaps). */
+    static double[] multiply(double[][] sigma, double[] w) {
+        int n = w.length;
+        double[] y = new double[n];
+        for (int i = 0; i < n; i++) {
+            double[] r = sigma[i];
+            double s0 = 0;
+            double s1 = 0;
+            double s2 = 0;
+            double s3 = 0;
+            int j = 0;
+            for (; j + 3 < n; j += 4) {
+                s0 += r[j] * w[j];
+                s1 += r[j + 1] * w[j + 1];
+                s2 += r[j + 2] * w[j + 2];
+                s3 += r[j + 3] * w[j + 3];
+            }
+            for (; j < n; j++) {
+                s0 += r[j] * w[j];
+            }
+            y[i] = (s0 + s1) + (s2 + s3);
+        }
+        return y;
     }
 }
