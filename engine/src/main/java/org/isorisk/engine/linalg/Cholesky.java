@@ -1,12 +1,5 @@
 package org.isorisk.engine.linalg;
 
-import java.util.ArrayList;
-import java.util.List;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
-import java.util.concurrent.atomic.AtomicInteger;
 
 /**
  * Cholesky factor {@code Σ = L L'} of a symmetric positive definite matrix, with single and multiple
@@ -26,7 +19,9 @@ import java.util.concurrent.atomic.AtomicInteger;
  * flat row-major array (row offsets {@code i*n + j}) was measured about three times slower, because the
  * compiler cannot prove that differently offset accesses of one array do not overlap and keeps it scalar.
  * The trailing update and the panel solve are split by rows (balanced by work) over a small shared pool of
- * daemon threads when the matrix is large.
+ * daemon threads when the matrix is large. The columns of L are kept as well (built from the panels as they
+ * are solved), so that the forward solve, like the backward one, runs as vectorised axpy loops; this costs
+ * n² more doubles of memory.
  *
  * <p>Instances are immutable and safe to share between threads.
  */
@@ -47,16 +42,16 @@ public final class Cholesky {
     /** Below this size the factorisation runs on the calling thread only; fork/join would cost more. */
     public static final int PARALLEL_MIN = 384;
 
-    private static final AtomicInteger THREAD_NUMBER = new AtomicInteger();
-    private static volatile ExecutorService pool;
-
     private final int n;
     /** Row i holds L[i][0..i]. */
     private final double[][] l;
+    /** Row j holds column j of L, L[i][j] at index i ≥ j (zeros before): the forward solve runs along it. */
+    private final double[][] lt;
 
-    private Cholesky(int n, double[][] l) {
+    private Cholesky(int n, double[][] l, double[][] lt) {
         this.n = n;
         this.l = l;
+        this.lt = lt;
     }
 
     /**
@@ -86,10 +81,11 @@ public final class Cholesky {
             l[i] = java.util.Arrays.copyOf(a[i], i + 1);
         }
         int t = n >= PARALLEL_MIN ? Math.max(1, threads) : 1;
-        return factorInPlace(n, l, t) ? new Cholesky(n, l) : null;
+        double[][] lt = new double[n][];
+        return factorInPlace(n, l, lt, t) ? new Cholesky(n, l, lt) : null;
     }
 
-    private static boolean factorInPlace(int n, double[][] l, int threads) {
+    private static boolean factorInPlace(int n, double[][] l, double[][] lt, int threads) {
         double[][] panel = n > BLOCK ? new double[BLOCK][n] : null;
         for (int start = 0; start < n; start += BLOCK) {
             int k0 = start;
@@ -98,14 +94,21 @@ public final class Cholesky {
                 return false;
             }
             int k1 = k0 + kb;
+            for (int p = 0; p < kb; p++) {
+                double[] column = new double[n];
+                for (int i = k0 + p; i < k1; i++) {
+                    column[i] = l[i][k0 + p];
+                }
+                lt[k0 + p] = column;
+            }
             if (k1 == n) {
                 break;
             }
             // Transposed panel: panel[p][i] = A[i][k0+p] for i ≥ k1, then solved in place to L[i][k0+p].
-            int[] cols = split(k1, n, threads, false);
-            run(threads, part -> packAndSolvePanel(l, panel, k0, kb, cols[part], cols[part + 1]));
-            int[] rows = split(k1, n, threads, true);
-            run(threads, part -> updateTrailing(l, panel, k0, kb, k1, rows[part], rows[part + 1]));
+            int[] cols = Workers.split(k1, n, threads, false);
+            Workers.run(threads, part -> packAndSolvePanel(l, lt, panel, k0, kb, cols[part], cols[part + 1]));
+            int[] rows = Workers.split(k1, n, threads, true);
+            Workers.run(threads, part -> updateTrailing(l, panel, k0, kb, k1, rows[part], rows[part + 1]));
         }
         return true;
     }
@@ -136,9 +139,10 @@ public final class Cholesky {
     /**
      * For rows {@code from..to−1} (all ≥ k0+kb): copies their block columns into the transposed panel, solves
      * {@code X L11' = A21} column-wise (forward substitution on panel rows, an axpy per step) and writes the
-     * result back into the rows of L.
+     * result back into the rows of L and into the columns kept for the forward solve.
      */
-    private static void packAndSolvePanel(double[][] l, double[][] panel, int k0, int kb, int from, int to) {
+    private static void packAndSolvePanel(double[][] l, double[][] lt, double[][] panel, int k0, int kb, int from,
+                                          int to) {
         // Transpose four rows at a time so that each panel row receives four adjacent entries per visit.
         int i4 = from;
         for (; i4 + 3 < to; i4 += 4) {
@@ -188,6 +192,9 @@ public final class Cholesky {
             for (int i = from; i < to; i++) {
                 pj[i] *= inv;
             }
+        }
+        for (int p = 0; p < kb; p++) {
+            System.arraycopy(panel[p], from, lt[k0 + p], from, to - from);
         }
         i4 = from;
         for (; i4 + 3 < to; i4 += 4) {
@@ -246,70 +253,6 @@ public final class Cholesky {
         }
     }
 
-    /**
-     * Splits {@code [from, to)} into {@code parts} ranges: equal lengths, or (triangular) equal areas of the
-     * lower triangle, where row i costs ∝ (i − from + 1).
-     */
-    private static int[] split(int from, int to, int parts, boolean triangular) {
-        int[] b = new int[parts + 1];
-        int m = to - from;
-        for (int p = 0; p <= parts; p++) {
-            double f = (double) p / parts;
-            int off = (int) Math.round(triangular ? m * Math.sqrt(f) : m * f);
-            b[p] = from + Math.min(m, off);
-        }
-        b[parts] = to;
-        return b;
-    }
-
-    private interface Part {
-        void run(int part);
-    }
-
-    /** Runs parts 1..threads−1 on the pool and part 0 on the calling thread; returns when all are done. */
-    private static void run(int threads, Part body) {
-        if (threads == 1) {
-            body.run(0);
-            return;
-        }
-        ExecutorService ex = pool(threads);
-        List<Future<?>> futures = new ArrayList<>(threads - 1);
-        for (int p = 1; p < threads; p++) {
-            int part = p;
-            futures.add(ex.submit(() -> body.run(part)));
-        }
-        body.run(0);
-        for (Future<?> f : futures) {
-            try {
-                f.get();
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-                throw new IllegalStateException("interrupted during a parallel factorisation", e);
-            } catch (ExecutionException e) {
-                throw new IllegalStateException("a factorisation worker failed", e.getCause());
-            }
-        }
-    }
-
-    /** The shared pool: daemon threads, created on first use, idle ones retire after a minute. */
-    private static ExecutorService pool(int threads) {
-        ExecutorService p = pool;
-        if (p == null) {
-            synchronized (Cholesky.class) {
-                p = pool;
-                if (p == null) {
-                    p = Executors.newCachedThreadPool(r -> {
-                        Thread th = new Thread(r, "isorisk-linalg-" + THREAD_NUMBER.incrementAndGet());
-                        th.setDaemon(true);
-                        return th;
-                    });
-                    pool = p;
-                }
-            }
-        }
-        return p;
-    }
-
     /** Matrix size. */
     public int size() {
         return n;
@@ -330,8 +273,8 @@ public final class Cholesky {
     }
 
     /**
-     * Solves {@code Σ X = B} for several right-hand sides at once, reading the factor once per group of four
-     * instead of once per vector.
+     * Solves {@code Σ X = B} for several right-hand sides at once: each row and column of the factor is fetched
+     * from memory once for all of them and reused from cache.
      *
      * @param rhs right-hand sides, each of length n (not modified)
      * @return the solutions, in the order of {@code rhs}
@@ -342,108 +285,53 @@ public final class Cholesky {
             checkLength(rhs[c]);
             x[c] = rhs[c].clone();
         }
-        for (int c = 0; c < x.length; c += 4) {
-            int r = Math.min(4, x.length - c);
-            if (r == 1) {
-                forward(x[c]);
-                backward(x[c]);
-                continue;
+        for (int i = 0; i < n; i++) {
+            double[] col = lt[i];
+            double d = col[i];
+            for (double[] xc : x) {
+                double xi = xc[i] / d;
+                xc[i] = xi;
+                axpy(-xi, col, xc, i + 1, n);
             }
-            double[] x0 = x[c];
-            double[] x1 = x[c + 1];
-            // Fewer than four distinct vectors: the spare slots work on scratch copies that are discarded.
-            double[] x2 = r > 2 ? x[c + 2] : new double[n];
-            double[] x3 = r > 3 ? x[c + 3] : new double[n];
-            forward4(x0, x1, x2, x3);
-            backward4(x0, x1, x2, x3);
+        }
+        for (int i = n - 1; i >= 0; i--) {
+            double[] row = l[i];
+            double d = row[i];
+            for (double[] xc : x) {
+                double xi = xc[i] / d;
+                xc[i] = xi;
+                axpy(-xi, row, xc, 0, i);
+            }
         }
         return x;
     }
 
-    /** Solves {@code L y = b} in place. */
+    /** Solves {@code L y = b} in place, column by column of L (an axpy per column, vectorised). */
     public void forward(double[] x) {
         checkLength(x);
         for (int i = 0; i < n; i++) {
-            double[] ri = l[i];
-            // Four partial sums: independent chains the processor can overlap.
-            double s0 = 0;
-            double s1 = 0;
-            double s2 = 0;
-            double s3 = 0;
-            int k = 0;
-            for (; k + 3 < i; k += 4) {
-                s0 += ri[k] * x[k];
-                s1 += ri[k + 1] * x[k + 1];
-                s2 += ri[k + 2] * x[k + 2];
-                s3 += ri[k + 3] * x[k + 3];
-            }
-            for (; k < i; k++) {
-                s0 += ri[k] * x[k];
-            }
-            x[i] = (x[i] - ((s0 + s1) + (s2 + s3))) / ri[i];
+            double[] col = lt[i];
+            double xi = x[i] / col[i];
+            x[i] = xi;
+            axpy(-xi, col, x, i + 1, n);
         }
     }
 
-    /** Forward substitution of four vectors in place, each row of L read once for all four. */
-    private void forward4(double[] x0, double[] x1, double[] x2, double[] x3) {
-        for (int i = 0; i < n; i++) {
-            double[] ri = l[i];
-            double s0 = 0;
-            double s1 = 0;
-            double s2 = 0;
-            double s3 = 0;
-            for (int k = 0; k < i; k++) {
-                double v = ri[k];
-                s0 += v * x0[k];
-                s1 += v * x1[k];
-                s2 += v * x2[k];
-                s3 += v * x3[k];
-            }
-            double d = ri[i];
-            x0[i] = (x0[i] - s0) / d;
-            x1[i] = (x1[i] - s1) / d;
-            x2[i] = (x2[i] - s2) / d;
-            x3[i] = (x3[i] - s3) / d;
-        }
-    }
-
-    /** Backward substitution of four vectors in place; a row of L is fetched once and then reused from cache. */
-    private void backward4(double[] x0, double[] x1, double[] x2, double[] x3) {
-        for (int i = n - 1; i >= 0; i--) {
-            double[] ri = l[i];
-            double d = ri[i];
-            double v0 = x0[i] / d;
-            double v1 = x1[i] / d;
-            double v2 = x2[i] / d;
-            double v3 = x3[i] / d;
-            x0[i] = v0;
-            x1[i] = v1;
-            x2[i] = v2;
-            x3[i] = v3;
-            axpyPrefix(-v0, ri, x0, i);
-            axpyPrefix(-v1, ri, x1, i);
-            axpyPrefix(-v2, ri, x2, i);
-            axpyPrefix(-v3, ri, x3, i);
-        }
-    }
-
-    /** {@code y[0..len) += c · x[0..len)}. */
-    private static void axpyPrefix(double c, double[] x, double[] y, int len) {
-        for (int k = 0; k < len; k++) {
-            y[k] += c * x[k];
-        }
-    }
-
-    /** Solves {@code L' x = y} in place. */
+    /** Solves {@code L' x = y} in place, row by row of L (an axpy per row, vectorised). */
     public void backward(double[] x) {
         checkLength(x);
         for (int i = n - 1; i >= 0; i--) {
-            double[] ri = l[i];
-            double xi = x[i] / ri[i];
+            double[] row = l[i];
+            double xi = x[i] / row[i];
             x[i] = xi;
-            for (int k = 0; k < i; k++) {
-                x[k] -= ri[k] * xi;
-            }
+            axpy(-xi, row, x, 0, i);
+        }
+    }
+
+    /** {@code y[from..to) += c · x[from..to)}. */
+    private static void axpy(double c, double[] x, double[] y, int from, int to) {
+        for (int k = from; k < to; k++) {
+            y[k] += c * x[k];
         }
     }
 

@@ -1,6 +1,7 @@
 package org.isorisk.engine.solve;
 
 import java.util.List;
+import org.isorisk.engine.linalg.Dense;
 import org.isorisk.engine.model.Certificate;
 import org.isorisk.engine.model.LinearConstraint;
 import org.isorisk.engine.model.Relation;
@@ -107,28 +108,8 @@ public final class Kkt {
         return new Certificate(worstResidual / unit, primal, dual / unit, comp / unit, condition, threshold, convex);
     }
 
-    /** {@code Σw} over the full matrix, four partial sums per row (independent chains the processor overlaps). */
+    /** {@code Σw} over the full (symmetric) matrix. */
     static double[] multiply(double[][] sigma, double[] w) {
-        int n = w.length;
-        double[] y = new double[n];
-        for (int i = 0; i < n; i++) {
-            double[] r = sigma[i];
-            double s0 = 0;
-            double s1 = 0;
-            double s2 = 0;
-            double s3 = 0;
-            int j = 0;
-            for (; j + 3 < n; j += 4) {
-                s0 += r[j] * w[j];
-                s1 += r[j + 1] * w[j + 1];
-                s2 += r[j + 2] * w[j + 2];
-                s3 += r[j + 3] * w[j + 3];
-            }
-            for (; j < n; j++) {
-                s0 += r[j] * w[j];
-            }
-            y[i] = (s0 + s1) + (s2 + s3);
-        }
-        return y;
+        return Dense.multiplySymmetric(sigma, w);
     }
 }
