@@ -5,12 +5,12 @@ public final class Tolerances {
     private Tolerances() {
     }
 
-    /** Round-off of a few operations on numbers of order one. */
+    /** Agreement expected from exact arithmetic done in double precision. */
     public static final double TIGHT = 1e-12;
-    /** What the closed form promises (relative). */
+    /** Closed-form solutions against each other or a reference formula. */
     public static final double CLOSED_FORM = 1e-10;
-    /** What a numerical (iterative) solver promises. */
+    /** Iterative or numerical methods, finite differences. */
     public static final double NUMERICAL = 1e-7;
-    /** General comparisons of computed values. */
+    /** Everything else. */
     public static final double GENERAL = 1e-8;
 }
