@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.util.List;
 import java.util.Properties;
+import org.isorisk.cli.commands.ChartCommand;
 import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.RiskCommand;
@@ -31,6 +32,7 @@ public final class IsoriskCommand implements Runnable {
             CheckCommand.class,
             SolveCommand.class,
             RiskCommand.class,
+            ChartCommand.class,
             DemoCommand.class);
 
     @Spec

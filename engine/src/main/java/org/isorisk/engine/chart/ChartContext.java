@@ -27,6 +27,28 @@ public record ChartContext(LocalDate asOf, String inputHash, String fundName) {
         fundName = fundName == null ? "" : fundName.strip();
     }
 
+    /**
+     * The context of results read from files: the as-of date of the provenance and a SHA-256 over the input files'
+     * own SHA-256 digests in the order read, so that the printed hash changes when any input does.
+     *
+     * @param fundName the fund's name; null to take it from the inputs' {@code # scenario:} line (up to its first
+     *                 comma), or none
+     */
+    public static ChartContext of(org.isorisk.engine.io.Provenance p, String fundName) {
+        StringBuilder all = new StringBuilder();
+        for (org.isorisk.engine.io.SourceFile f : p.inputs()) {
+            all.append(f.sha256()).append('\n');
+        }
+        String hash = org.isorisk.engine.io.SourceFile.sha256(all.toString().getBytes(
+                java.nio.charset.StandardCharsets.UTF_8));
+        String name = fundName;
+        if (name == null && p.scenario() != null) {
+            int comma = p.scenario().indexOf(',');
+            name = comma < 0 ? p.scenario() : p.scenario().substring(0, comma);
+        }
+        return new ChartContext(p.asOf(), hash, name);
+    }
+
     /** The hash as printed: its first {@link #SHORT_HASH} hex digits. */
     public String shortHash() {
         return inputHash.substring(0, Math.min(SHORT_HASH, inputHash.length()));

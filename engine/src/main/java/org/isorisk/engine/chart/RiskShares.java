@@ -40,6 +40,15 @@ public record RiskShares(String portfolio, List<String> assets, double[] shares)
         }
     }
 
+    /** The shares of an engine risk decomposition: component contribution over volatility, per asset. */
+    public static RiskShares of(String portfolio, org.isorisk.engine.risk.RiskDecomposition d) {
+        double[] sh = new double[d.assets().size()];
+        for (int i = 0; i < sh.length; i++) {
+            sh[i] = d.share(i);
+        }
+        return new RiskShares(portfolio, d.assets(), sh);
+    }
+
     @Override
     public double[] shares() {
         return shares.clone();
