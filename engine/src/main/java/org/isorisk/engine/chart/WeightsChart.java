@@ -144,6 +144,8 @@ final class WeightsChart {
         double top = 0;
         double bottom = 0;
         List<double[][]> polys = new ArrayList<>();
+        BandLabels bandLabels = new BandLabels();
+        int layer = 0;
         for (double[] w : layers) {
             double[] lo = new double[k];
             double[] hi = new double[k];
@@ -163,6 +165,9 @@ final class WeightsChart {
                 bottom = Math.min(bottom, lo[j]);
             }
             polys.add(band(xs, lo, hi));
+            String name = labels.get(layer).startsWith("Other") ? "Other" : labels.get(layer);
+            bandLabels.add(new BandLabels.Band(name, fills.get(layer), xs, lo, hi));
+            layer++;
         }
 
         XYChart chart = new XYChartBuilder().width(s.width()).height(s.height())
@@ -209,6 +214,7 @@ final class WeightsChart {
             notices.add(0, "Dashed verticals: corner portfolios, where an asset reaches or leaves a limit; between "
                     + "them the weights change in straight lines.");
         }
+        chart.addAnnotation(bandLabels); // after the guides, so that names sit on top
         return new Figure(Figure.Kind.WEIGHTS, chart, s, ctx, notices, List.of());
     }
 
