@@ -245,10 +245,16 @@ final class FrontierChart {
                     + "%d assets); the tables list them by name.", n, s.assetLabelLimit()));
         }
         chart.addAnnotation(labels);
-        Supplier<String> omitted = () -> labels.painted() && labels.omitted() > 0
-                ? String.format(Locale.ROOT, "%d label%s left out to avoid overlaps: %s.", labels.omitted(),
-                labels.omitted() == 1 ? "" : "s", String.join(", ", labels.omittedTexts()))
-                : null;
+        // Names are listed when there are few, so that the notice stays on one line of the footnote.
+        Supplier<String> omitted = () -> {
+            if (!labels.painted() || labels.omitted() == 0) {
+                return null;
+            }
+            List<String> names = labels.omittedTexts();
+            return labels.omitted() == 1 ? "1 label left out to avoid overlaps: " + names.get(0) + "."
+                    : names.size() <= 3 ? labels.omitted() + " labels left out to avoid overlaps: "
+                    + String.join(", ", names) + "." : labels.omitted() + " labels left out to avoid overlaps.";
+        };
         return new Figure(Figure.Kind.FRONTIER, chart, s, ctx, notices, List.of(omitted), true);
     }
 
