@@ -76,7 +76,7 @@ public final class Estimator {
             Frequency looks = Frequency.matching(median);
             if (looks != null && looks != freq) {
                 f.add(Issue.warning(Issue.Code.FREQUENCY_MISMATCH, null, 0, String.format(Locale.ROOT,
-                        "the dates look %s (median interval %s days) but the frequency was given as %s; "
+                        "the dates look %s (median interval %s) but the frequency was given as %s; "
                                 + "annualisation uses %d periods a year; fix: check --frequency",
                         looks.label(), Frequency.format(median), freq.label(), periodsPerYear(s, freq))));
             }

@@ -75,7 +75,7 @@ public enum Frequency {
             return new Detection(f, median);
         }
         throw InputException.of(String.format(Locale.ROOT, "cannot tell the frequency from the dates: the median "
-                        + "interval is %s days, which is not daily (1-4), weekly (5-10), monthly (25-35) or quarterly "
+                        + "interval is %s, which is not daily (1-4), weekly (5-10), monthly (25-35) or quarterly "
                         + "(80-100)", format(median)))
                 .file(source).column("date").fix("give the frequency (--frequency daily|weekly|monthly|quarterly)")
                 .build();
@@ -105,8 +105,10 @@ public enum Frequency {
         return gaps.length % 2 == 1 ? gaps[m] : (gaps[m - 1] + gaps[m]) / 2.0;
     }
 
+    /** A number of days in words: "1 day", "7 days", "1.5 days". */
     static String format(double days) {
-        return days == Math.rint(days) ? String.valueOf((long) days) : String.format(Locale.ROOT, "%.1f", days);
+        String v = days == Math.rint(days) ? String.valueOf((long) days) : String.format(Locale.ROOT, "%.1f", days);
+        return v + (days == 1 ? " day" : " days");
     }
 
     /**
