@@ -24,7 +24,7 @@ public final class Repair {
     }
 
     /** The command that repairs a matrix, named by every message that refuses a broken one. */
-    public static final String COMMAND = "isorisk repair";
+    public static final String COMMAND = "isorisk check --repair";
 
     /** Relative asymmetry above which a matrix is refused rather than repaired. */
     static final double SYMMETRY_TOLERANCE = 1e-12;

@@ -151,7 +151,7 @@ class DataQualityTests {
         assertTrue(e.after().smallest() < 0, e.after().toString());
         assertEquals(List.of(String.format(Locale.ROOT, "the estimated covariance matrix is not positive definite "
                 + "(smallest eigenvalue %.4g), so solve will refuse it; fix: use --method ledoit-wolf-identity or "
-                + "ledoit-wolf-constant-correlation, listwise deletion, or repair it (isorisk repair)",
+                + "ledoit-wolf-constant-correlation, listwise deletion, or repair it (isorisk check --repair)",
                 e.after().smallest())), messages(e, Issue.Code.NOT_POSITIVE_SEMIDEFINITE));
         // Listwise deletion leaves no complete row at all here.
         InputException ex = assertThrows(InputException.class, () -> Estimator.estimate(h, DEFAULTS, null));
