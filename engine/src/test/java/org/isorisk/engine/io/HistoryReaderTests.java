@@ -1,0 +1,70 @@
+package org.isorisk.engine.io;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.StringReader;
+import java.time.LocalDate;
+import java.util.List;
+import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.estimate.History;
+import org.isorisk.engine.estimate.ValueKind;
+import org.junit.jupiter.api.Test;
+
+class HistoryReaderTests {
+
+    private static History read(String text, DateFormat f) {
+        return HistoryReader.read(new StringReader(text), "h.csv", ValueKind.PRICES, f);
+    }
+
+    private static String error(String text, DateFormat f) {
+        return assertThrows(InputException.class, () -> read(text, f)).getMessage();
+    }
+
+    @Test
+    void readsIsoDatesAssetColumnsAndMissingMarkers() {
+        History h = read("\uFEFFdate,Alpha Fund,\"Beta, Inc\"\n2020-01-06,100.5,NA\n\n2020-01-07, 101 ,\n"
+                + "2020-01-08,#N/A,1e2\n", null);
+        assertEquals(List.of("Alpha Fund", "Beta, Inc"), h.assets());
+        assertEquals(LocalDate.of(2020, 1, 7), h.date(1));
+        assertEquals(100.5, h.value(0, 0), 0);
+        assertEquals(101, h.value(1, 0), 0);
+        assertTrue(Double.isNaN(h.value(0, 1)));
+        assertTrue(Double.isNaN(h.value(1, 1)));
+        assertTrue(Double.isNaN(h.value(2, 0)));
+        assertEquals(100, h.value(2, 1), 0);
+        assertEquals(4, h.row(1), "the blank line still counts as a row of the file");
+    }
+
+    @Test
+    void dayMonthYearIsReadOnlyWhenAskedFor() {
+        String text = "date,A\n03/04/2020,1\n06/04/2020,2\n";
+        assertEquals(LocalDate.of(2020, 4, 3), read(text, DateFormat.DAY_MONTH_YEAR).date(0));
+        assertEquals("h.csv, row 2, column 'date': the date is not in the format yyyy-MM-dd (value '03/04/2020'); "
+                + "fix: write ISO dates (yyyy-MM-dd), or give --date-format dd/MM/yyyy if the file uses day/month/year "
+                + "(slashed dates are not guessed: 03/04/2020 could be March or April)", error(text, null));
+        assertEquals("h.csv, row 2, column 'date': the date is not in the format dd/MM/yyyy (value '2020-04-03'); fix: "
+                + "write dates as dd/MM/yyyy", error("date,A\n2020-04-03,1\n", DateFormat.DAY_MONTH_YEAR));
+        assertTrue(error("date,A\n2020-02-30,1\n", null).contains("(value '2020-02-30')"), "no 30 February");
+    }
+
+    @Test
+    void badCellsNameRowColumnAndFix() {
+        assertEquals("h.csv, row 3, column 'B': the cell is not a number (value '5%'); fix: write decimals: 0.05, "
+                + "not 5%", error("date,A,B\n2020-01-06,1,2\n2020-01-07,1,5%\n", null));
+        assertEquals("h.csv, row 2, column 'A': the cell is not a number (value 'abc'); fix: write a decimal number "
+                + "such as 101.25, or leave the cell empty for a missing value", error("date,A\n2020-01-06,abc\n", null));
+        assertEquals("h.csv, row 2: the row has 4 fields but the header has 3; fix: give one value per column (a "
+                + "decimal comma splits a number in two: write 0.05, not 0,05)",
+                error("date,A,B\n2020-01-06,0,05,1\n", null));
+        assertEquals("h.csv, row 1: the header has a single column; fix: the file seems to use ';' between columns: "
+                + "save it comma-separated", error("date;A;B\n2020-01-06;1;2\n", null));
+        assertEquals("h.csv: the file is empty; fix: give a header row: a date column, then one column per asset",
+                error("", null));
+        assertEquals("h.csv, row 1, asset 'A': asset named twice in the header; fix: give each asset one column",
+                error("date,A,A\n2020-01-06,1,2\n", null));
+        assertTrue(error("date,A\n2020-01-06,Infinity\n", null).contains("not a number"));
+        assertTrue(error("date,A\n2020-01-06,1d\n", null).contains("not a number"), "Java's 1d suffix is not a number");
+    }
+}
