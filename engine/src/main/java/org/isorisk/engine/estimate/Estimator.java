@@ -217,9 +217,10 @@ public final class Estimator {
         }
         double[][] covAnnual = scaled(est, ppy);
         double[][] sampleAnnual = est == sample ? covAnnual : scaled(sample, ppy);
-        Spectrum after = spectrum(covAnnual);
+        Cholesky afterFactor = Cholesky.factor(covAnnual);
+        Spectrum after = afterFactor != null ? Spectrum.of(covAnnual, afterFactor) : Spectrum.of(covAnnual);
         Spectrum before = est == sample ? after : spectrum(sampleAnnual);
-        if (!(after.smallest() > 0) || Cholesky.factor(covAnnual) == null) {
+        if (!(after.smallest() > 0) || afterFactor == null) {
             f.add(Issue.warning(Issue.Code.NOT_POSITIVE_SEMIDEFINITE, null, 0, String.format(Locale.ROOT,
                     "the estimated covariance matrix is not positive definite (smallest eigenvalue %s), so solve "
                             + "will refuse it; fix: use --method ledoit-wolf-identity or "

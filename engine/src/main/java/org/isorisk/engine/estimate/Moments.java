@@ -50,16 +50,28 @@ final class Moments {
         return c;
     }
 
-    /** {@code G = A'B / divisor} for columns {@code a[i][t]}, {@code b[j][t]}; symmetric when a == b. */
+    /**
+     * {@code G = A'B / divisor} for columns {@code a[i][t]}, {@code b[j][t]}; symmetric when a == b. Entries are
+     * computed in 2 × 2 blocks (four dot products sharing each load), block rows spread over the cores.
+     */
     static double[][] cross(double[][] a, double[][] b, double divisor) {
         int n = a.length;
         double[][] g = new double[n][n];
         boolean symmetric = a == b;
-        IntStream.range(0, n).parallel().forEach(i -> {
-            double[] ai = a[i];
-            double[] gi = g[i];
-            for (int j = symmetric ? i : 0; j < n; j++) {
-                gi[j] = dot(ai, b[j]) / divisor;
+        int blocks = (n + 1) / 2;
+        IntStream.range(0, blocks).parallel().forEach(bi -> {
+            int i = 2 * bi;
+            int jStart = symmetric ? i : 0;
+            for (int j = jStart; j < n; j += 2) {
+                if (i + 1 < n && j + 1 < n) {
+                    block(a[i], a[i + 1], b[j], b[j + 1], g, i, j, divisor);
+                } else {
+                    for (int ii = i; ii < Math.min(i + 2, n); ii++) {
+                        for (int jj = j; jj < Math.min(j + 2, n); jj++) {
+                            g[ii][jj] = dot(a[ii], b[jj]) / divisor;
+                        }
+                    }
+                }
             }
         });
         if (symmetric) {
@@ -70,6 +82,48 @@ final class Moments {
             }
         }
         return g;
+    }
+
+    private static void block(double[] x0, double[] x1, double[] y0, double[] y1, double[][] g, int i, int j,
+                              double divisor) {
+        int len = x0.length;
+        double s00 = 0;
+        double s01 = 0;
+        double s10 = 0;
+        double s11 = 0;
+        double u00 = 0;
+        double u01 = 0;
+        double u10 = 0;
+        double u11 = 0;
+        int t = 0;
+        for (; t + 1 < len; t += 2) {
+            double a0 = x0[t];
+            double a1 = x1[t];
+            double b0 = y0[t];
+            double b1 = y1[t];
+            s00 += a0 * b0;
+            s01 += a0 * b1;
+            s10 += a1 * b0;
+            s11 += a1 * b1;
+            double c0 = x0[t + 1];
+            double c1 = x1[t + 1];
+            double d0 = y0[t + 1];
+            double d1 = y1[t + 1];
+            u00 += c0 * d0;
+            u01 += c0 * d1;
+            u10 += c1 * d0;
+            u11 += c1 * d1;
+        }
+        if (t < len) {
+            s00 += x0[t] * y0[t];
+            s01 += x0[t] * y1[t];
+            s10 += x1[t] * y0[t];
+            s11 += x1[t] * y1[t];
+        }
+        g[i][j] = (s00 + u00) / divisor;
+        g[i][j + 1] = (s01 + u01) / divisor;
+        g[i + 1][j] = (s10 + u10) / divisor;
+        g[i + 1][j + 1] = (s11 + u11) / divisor;
     }
 
     /** Dot product with four partial sums (shorter dependency chains; the JIT keeps them in registers). */

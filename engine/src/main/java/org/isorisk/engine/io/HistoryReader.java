@@ -10,6 +10,7 @@ import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.stream.IntStream;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.estimate.History;
 import org.isorisk.engine.estimate.ValueKind;
@@ -54,31 +55,91 @@ public final class HistoryReader {
         List<String> assets = new ArrayList<>(h.subList(1, h.size()));
         String dateColumn = h.get(0).isEmpty() ? "date" : h.get(0);
         int n = assets.size();
-        List<LocalDate> ds = new ArrayList<>();
-        List<Integer> rows = new ArrayList<>();
-        List<double[]> values = new ArrayList<>();
+        List<CsvRecords.Record> records = new ArrayList<>();
         for (CsvRecords.Record rec = csv.next(); rec != null; rec = csv.next()) {
-            List<String> f = rec.fields();
-            if (f.size() != n + 1) {
-                throw InputException.of("the row has " + f.size() + " fields but the header has " + (n + 1))
-                        .file(source).row(rec.row())
-                        .fix("give one value per column (a decimal comma splits a number in two: write 0.05, not 0,05)")
-                        .build();
-            }
-            ds.add(date(f.get(0), format, source, rec.row(), dateColumn));
-            double[] v = new double[n];
-            for (int j = 0; j < n; j++) {
-                v[j] = CsvRecords.number(f.get(j + 1), true, source, rec.row(), assets.get(j));
-            }
-            values.add(v);
-            rows.add(rec.row());
+            records.add(rec);
         }
-        int[] rowArray = new int[rows.size()];
-        for (int t = 0; t < rowArray.length; t++) {
-            rowArray[t] = rows.get(t);
+        int count = records.size();
+        LocalDate[] ds = new LocalDate[count];
+        int[] rows = new int[count];
+        double[][] values = new double[count][];
+        // Lines are independent: parse them on every core; the first error in table order is reported.
+        InputException[] errors = new InputException[count];
+        IntStream.range(0, count).parallel().forEach(t -> {
+            CsvRecords.Record rec = records.get(t);
+            rows[t] = rec.row();
+            try {
+                if (rec.raw() != null) {
+                    parseLine(rec.raw(), rec.row(), n, assets, source, format, dateColumn, ds, values, t);
+                } else {
+                    parseFields(rec.fields(), rec.row(), n, assets, source, format, dateColumn, ds, values, t);
+                }
+            } catch (InputException e) {
+                errors[t] = e;
+            }
+        });
+        for (InputException e : errors) {
+            if (e != null) {
+                throw e;
+            }
         }
-        return new History(source, assets, ds.toArray(new LocalDate[0]), rowArray, values.toArray(new double[0][]),
-                kind);
+        return new History(source, assets, ds, rows, values, kind);
+    }
+
+    private static InputException ragged(int fields, int n, String source, int row) {
+        return InputException.of("the row has " + fields + " fields but the header has " + (n + 1))
+                .file(source).row(row)
+                .fix("give one value per column (a decimal comma splits a number in two: write 0.05, not 0,05)")
+                .build();
+    }
+
+    private static void parseFields(List<String> f, int row, int n, List<String> assets, String source,
+                                    DateFormat format, String dateColumn, LocalDate[] ds, double[][] values, int t) {
+        if (f.size() != n + 1) {
+            throw ragged(f.size(), n, source, row);
+        }
+        ds[t] = date(f.get(0), format, source, row, dateColumn);
+        double[] v = new double[n];
+        for (int j = 0; j < n; j++) {
+            v[j] = CsvRecords.number(f.get(j + 1), true, source, row, assets.get(j));
+        }
+        values[t] = v;
+    }
+
+    /** A line without quotes: numbers are read straight from the line, without a string per cell. */
+    private static void parseLine(String line, int row, int n, List<String> assets, String source,
+                                  DateFormat format, String dateColumn, LocalDate[] ds, double[][] values, int t) {
+        int comma = line.indexOf(',');
+        if (comma < 0) {
+            throw ragged(1, n, source, row);
+        }
+        ds[t] = date(line.substring(0, comma).trim(), format, source, row, dateColumn);
+        double[] v = new double[n];
+        int start = comma + 1;
+        for (int j = 0; j < n; j++) {
+            int end = line.indexOf(',', start);
+            if ((end < 0) != (j == n - 1)) {
+                throw ragged(CsvRecords.split(line).size(), n, source, row);
+            }
+            if (end < 0) {
+                end = line.length();
+            }
+            int a = start;
+            int b = end;
+            while (a < b && line.charAt(a) <= ' ') {
+                a++;
+            }
+            while (b > a && line.charAt(b - 1) <= ' ') {
+                b--;
+            }
+            double x = a == b ? Double.NaN : CsvRecords.fastDecimal(line, a, b);
+            if (Double.isNaN(x) && a < b) {
+                x = CsvRecords.number(line.substring(a, b), true, source, row, assets.get(j));
+            }
+            v[j] = x;
+            start = end + 1;
+        }
+        values[t] = v;
     }
 
     private static LocalDate date(String s, DateFormat format, String source, int row, String column) {

@@ -67,4 +67,25 @@ class HistoryReaderTests {
         assertTrue(error("date,A\n2020-01-06,Infinity\n", null).contains("not a number"));
         assertTrue(error("date,A\n2020-01-06,1d\n", null).contains("not a number"), "Java's 1d suffix is not a number");
     }
+
+    @Test
+    void theFastNumberPathGivesExactlyTheDoubleThatParseDoubleGives() {
+        java.util.Random rnd = new java.util.Random(7);
+        int fast = 0;
+        for (int k = 0; k < 200_000; k++) {
+            String s = switch (k % 4) {
+                case 0 -> String.format(java.util.Locale.ROOT, "%.4f", rnd.nextDouble() * Math.pow(10, rnd.nextInt(9)));
+                case 1 -> Long.toString(rnd.nextLong() % 1_000_000_000_000_000L);
+                case 2 -> "-0." + Math.abs(rnd.nextLong() % 100_000_000_000_000L);
+                default -> Double.toString(rnd.nextGaussian() * 0.01);
+            };
+            double v = CsvRecords.fastDecimal(s);
+            if (!Double.isNaN(v)) {
+                fast++;
+                assertEquals(Double.parseDouble(s), v, 0, s);
+            }
+            assertEquals(Double.parseDouble(s), CsvRecords.number(s, false, "x", 2, "A"), 0, s);
+        }
+        assertTrue(fast > 100_000, "most cells take the fast path: " + fast);
+    }
 }
