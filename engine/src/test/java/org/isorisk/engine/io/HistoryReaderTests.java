@@ -72,7 +72,7 @@ class HistoryReaderTests {
     void theFastNumberPathGivesExactlyTheDoubleThatParseDoubleGives() {
         java.util.Random rnd = new java.util.Random(7);
         int fast = 0;
-        for (int k = 0; k < 200_000; k++) {
+        for (int k = 0; k < 40_000; k++) {
             String s = switch (k % 4) {
                 case 0 -> String.format(java.util.Locale.ROOT, "%.4f", rnd.nextDouble() * Math.pow(10, rnd.nextInt(9)));
                 case 1 -> Long.toString(rnd.nextLong() % 1_000_000_000_000_000L);
@@ -86,6 +86,6 @@ class HistoryReaderTests {
             }
             assertEquals(Double.parseDouble(s), CsvRecords.number(s, false, "x", 2, "A"), 0, s);
         }
-        assertTrue(fast > 100_000, "most cells take the fast path: " + fast);
+        assertTrue(fast > 20_000, "most cells take the fast path: " + fast);
     }
 }
