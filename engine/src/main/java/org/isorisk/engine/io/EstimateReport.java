@@ -83,17 +83,17 @@ public final class EstimateReport {
         w.printf(Locale.ROOT, "  returns used:   %d of %d (%s to %s), %d dropped by listwise deletion%n", o.used(),
                 o.returns(), o.first(), o.last(), o.dropped());
         w.printf(Locale.ROOT, "  returns:        %s%n", returns(e));
-        w.printf(Locale.ROOT, "  frequency:      %s (%s, median interval %s days); %d periods a year%n",
+        w.printf(Locale.ROOT, "  frequency:      %s (%s, median interval %s %s); %d periods a year%n",
                 e.frequency().label(), e.frequencyDetected() ? "detected from the dates" : "given",
-                num(e.medianGapDays()), e.periodsPerYear());
+                num(e.medianGapDays()), e.medianGapDays() == 1 ? "day" : "days", e.periodsPerYear());
         w.printf(Locale.ROOT, "  annualised:     mean x %d, covariance x %d%s%n", e.periodsPerYear(),
                 e.periodsPerYear(), e.returnType() == ReturnType.SIMPLE ? " (simple returns are not compounded)" : "");
         w.printf(Locale.ROOT, "  covariance:     %s%n", method(e));
         w.printf(Locale.ROOT, "  expected:       %s%n", mean(e));
-        w.printf(Locale.ROOT, "  conditioning:   %-28s %-22s %s%n", "", "smallest eigenvalue", "condition number");
-        w.printf(Locale.ROOT, "                  %-28s %-22s %s%n", "before (sample, n - 1)", sci(e.before().smallest()),
+        w.printf(Locale.ROOT, "  conditioning:   %-24s %-22s %s%n", "", "smallest eigenvalue", "condition number");
+        w.printf(Locale.ROOT, "                  %-24s %-22s %s%n", "before (sample, n - 1)", sci(e.before().smallest()),
                 sci(e.before().conditionNumber()));
-        w.printf(Locale.ROOT, "                  %-28s %-22s %s%n", "after (" + e.method().label() + ")",
+        w.printf(Locale.ROOT, "                  %-24s %-22s %s%n", "after (this estimate)",
                 sci(e.after().smallest()), sci(e.after().conditionNumber()));
         w.println();
         double[] mu = e.expectedReturns();

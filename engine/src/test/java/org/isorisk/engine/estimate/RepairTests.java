@@ -159,13 +159,14 @@ class RepairTests {
     }
 
     @Test
-    void theDefaultFloorKeepsTheSmallestEigenvalueAtOneInAHundredMillion() {
+    void theDefaultFloorKeepsTheSmallestEigenvalueAtOneInTenThousand() {
         double[][] a = {{1, 1, 0}, {1, 1, 1}, {0, 1, 1}};
         RepairResult r = Repair.correlation(List.of("x", "y", "z"), a, RepairSettings.defaults(), "a.csv");
         double lo = smallestEigenvalue(r.repaired());
-        assertTrue(lo >= 0.99e-8 && lo < 1e-6, "floor 1e-8: " + lo);
+        assertTrue(lo >= 0.99e-4 && lo < 1e-3, "floor 1e-4: " + lo);
         RepairResult exact = Repair.correlation(List.of("x", "y", "z"), a, EXACT, "a.csv");
-        assertTrue(Math.abs(r.correlationDistance() - exact.correlationDistance()) < 1e-6);
+        assertTrue(Math.abs(r.correlationDistance() - exact.correlationDistance()) < 1e-3,
+                r.correlationDistance() + " vs " + exact.correlationDistance());
     }
 
     @Test
