@@ -5,12 +5,12 @@ public final class Tolerances {
     private Tolerances() {
     }
 
-    /** Agreement of two computations of the same formula in double precision. */
+    /** Agreement expected from exact arithmetic done in double precision. */
     public static final double TIGHT = 1e-12;
-    /** Closed-form results against independent references. */
+    /** Closed-form solutions against each other or a reference formula. */
     public static final double CLOSED_FORM = 1e-10;
-    /** Iterative methods against references. */
+    /** Iterative or numerical methods, finite differences. */
     public static final double NUMERICAL = 1e-7;
-    /** General agreement between independent solvers. */
+    /** Everything else. */
     public static final double GENERAL = 1e-8;
 }
