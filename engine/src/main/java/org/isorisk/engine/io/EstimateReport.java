@@ -1,9 +1,7 @@
 package org.isorisk.engine.io;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.Writer;
 import java.util.List;
@@ -25,8 +23,6 @@ import org.isorisk.engine.linalg.Spectrum;
 public final class EstimateReport {
     private EstimateReport() {
     }
-
-    private static final ObjectMapper JSON = new ObjectMapper();
 
     /** The estimator in words, with its source. */
     public static String method(Estimate e) {
@@ -127,7 +123,7 @@ public final class EstimateReport {
 
     /** The report as a JSON object (field names in snake case; NaN and infinities as null). */
     public static ObjectNode json(Estimate e) {
-        ObjectNode root = JSON.createObjectNode();
+        ObjectNode root = ResultJson.object();
         root.put("status", "ok");
         root.put("source", e.source());
         root.put("kind", e.kind().label());
@@ -204,12 +200,6 @@ public final class EstimateReport {
         return root;
     }
 
-    /** Writes {@link #json(Estimate)} pretty-printed, with a final newline. */
-    public static void writeJson(Writer w, ObjectNode node) throws IOException {
-        w.write(JSON.writerWithDefaultPrettyPrinter().writeValueAsString(node));
-        w.write('\n');
-    }
-
     static void spectrum(ObjectNode n, Spectrum s) {
         number(n, "smallest_eigenvalue", s.smallest());
         number(n, "largest_eigenvalue", s.largest());
@@ -218,11 +208,7 @@ public final class EstimateReport {
     }
 
     static void number(ObjectNode n, String field, double v) {
-        if (Double.isFinite(v)) {
-            n.put(field, v);
-        } else {
-            n.putNull(field);
-        }
+        ResultJson.number(n, field, v);
     }
 
     static String num(double v) {

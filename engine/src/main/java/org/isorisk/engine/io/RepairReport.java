@@ -1,6 +1,5 @@
 package org.isorisk.engine.io;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
@@ -13,8 +12,6 @@ import org.isorisk.engine.explain.Caution;
 public final class RepairReport {
     private RepairReport() {
     }
-
-    private static final ObjectMapper JSON = new ObjectMapper();
 
     /** Writes the report as text. */
     public static void text(Writer out, RepairResult r, String source) {
@@ -49,7 +46,7 @@ public final class RepairReport {
 
     /** The report as a JSON object. */
     public static ObjectNode json(RepairResult r, String source) {
-        ObjectNode root = JSON.createObjectNode();
+        ObjectNode root = ResultJson.object();
         root.put("status", "ok");
         root.put("source", source);
         root.put("matrix", r.covarianceInput() ? "covariance" : "correlation");

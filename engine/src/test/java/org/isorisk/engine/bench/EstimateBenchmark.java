@@ -8,7 +8,6 @@ import java.nio.file.Path;
 import java.time.DayOfWeek;
 import java.time.LocalDate;
 import java.util.Comparator;
-import java.util.List;
 import java.util.Locale;
 import java.util.Random;
 import java.util.stream.Stream;
@@ -19,7 +18,7 @@ import org.isorisk.engine.estimate.Estimator;
 import org.isorisk.engine.estimate.History;
 import org.isorisk.engine.estimate.ValueKind;
 import org.isorisk.engine.io.AssumptionFiles;
-import org.isorisk.engine.io.AtomicOutput;
+import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.DateFormat;
 import org.isorisk.engine.io.HistoryReader;
 
@@ -68,7 +67,8 @@ public final class EstimateBenchmark {
                 long w0 = System.nanoTime();
                 long q0 = cpu();
                 Path out = dir.resolve("out" + rep);
-                AssumptionFiles.estimate(new AtomicOutput(out), last).commit(false, List.of(csv));
+                Estimate written = last;
+                AtomicWrite.folder(out, folder -> AssumptionFiles.estimate(folder, written));
                 long w1 = System.nanoTime();
                 line.append(String.format(Locale.ROOT, " | write %s", ms(w1 - w0, cpu() - q0)));
                 System.out.println(line);
