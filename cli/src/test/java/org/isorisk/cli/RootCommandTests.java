@@ -12,8 +12,8 @@ class RootCommandTests {
     void withoutACommandItExitsTwoNamingTheCommands() {
         Run r = Run.of();
         assertEquals(2, r.code(), r.toString());
-        assertEquals("isorisk: error: name a command: check, solve, estimate, risk, chart, demo (see 'isorisk --help')
-", r.err());
+        assertEquals("isorisk: error: name a command: check, solve, estimate, risk, chart, demo (see 'isorisk --help')\n",
+                r.err());
         assertEquals("", r.out());
     }
 
