@@ -146,13 +146,14 @@ public record Spectrum(double smallest, double largest, boolean exact) {
             beta[k] = b;
             int m = k + 1;
             hi = kthLargest(alpha, beta, m, 0);
-            lo = kthLargest(alpha, beta, m, m - 1);
-            double scale = Math.max(Math.max(Math.abs(hi), Math.abs(lo)), Double.MIN_NORMAL);
-            double hiErr = error(alpha, beta, m, hi, m > 1 ? hi - kthLargest(alpha, beta, m, 1) : 0);
-            boolean done = hiErr <= RELATIVE_ACCURACY * Math.max(Math.abs(hi), Double.MIN_NORMAL);
+            boolean done = converged(alpha, beta, m, hi, 1, Math.max(Math.abs(hi), Double.MIN_NORMAL));
+            double scale = Math.abs(hi);
+            if (both || done || !(b > 1e-13 * scale) || m == steps) {
+                lo = kthLargest(alpha, beta, m, m - 1);
+                scale = Math.max(Math.max(Math.abs(hi), Math.abs(lo)), Double.MIN_NORMAL);
+            }
             if (both && done) {
-                double loErr = error(alpha, beta, m, lo, m > 1 ? kthLargest(alpha, beta, m, m - 2) - lo : 0);
-                done = loErr <= RELATIVE_ACCURACY * scale;
+                done = converged(alpha, beta, m, lo, -1, scale);
             }
             // b ≈ 0: the Krylov subspace is invariant and its Ritz values are eigenvalues.
             if (done || !(b > 1e-13 * scale) || m == steps) {
@@ -165,13 +166,24 @@ public record Spectrum(double smallest, double largest, boolean exact) {
     }
 
     /**
-     * Error estimate {@code min(r, r²/gap)} of Ritz value θ of the m×m tridiagonal (alpha, beta), with
-     * {@code r = β_m |s_m|} from its eigenvector s (inverse iteration on T − θI).
+     * Whether Ritz value θ (the largest when {@code end} is 1, the smallest when −1) of the m×m tridiagonal
+     * (alpha, beta) has error estimate {@code min(r, r²/gap) ≤ RELATIVE_ACCURACY · scale}, with
+     * {@code r = β_m |s_m|} from its eigenvector s (inverse iteration on T − θI) and gap the distance to the
+     * next Ritz value (computed only when r alone does not settle it).
      */
-    private static double error(double[] alpha, double[] beta, int m, double theta, double gap) {
+    private static boolean converged(double[] alpha, double[] beta, int m, double theta, int end, double scale) {
         double[] s = tridiagonalEigenvector(alpha, beta, m, theta);
         double r = beta[m - 1] * Math.abs(s[m - 1]);
-        return gap > 0 ? Math.min(r, r * r / gap) : r;
+        double limit = RELATIVE_ACCURACY * scale;
+        if (r <= limit) {
+            return true;
+        }
+        if (m < 2) {
+            return false;
+        }
+        double next = kthLargest(alpha, beta, m, end > 0 ? 1 : m - 2);
+        double gap = Math.abs(theta - next);
+        return gap > 0 && r * r / gap <= limit;
     }
 
     /** Unit eigenvector of the tridiagonal (d, e) for eigenvalue θ: two steps of inverse iteration. */
@@ -235,7 +247,7 @@ public record Spectrum(double smallest, double largest, boolean exact) {
         int below = m - 1 - k; // the wanted eigenvalue has exactly this many below it
         for (int it = 0; it < 200; it++) {
             double mid = 0.5 * (lo + hi);
-            if (mid <= lo || mid >= hi) {
+            if (mid <= lo || mid >= hi || hi - lo <= 1e-15 * Math.max(Math.abs(lo), Math.abs(hi))) {
                 break;
             }
             if (countBelow(d, e, m, mid) > below) {
