@@ -47,11 +47,14 @@ public final class Cholesky {
     private final double[][] l;
     /** Row j holds column j of L, L[i][j] at index i ≥ j (zeros before): the forward solve runs along it. */
     private final double[][] lt;
+    /** Threads the single-vector solves may use (those given to the factorisation). */
+    private final int threads;
 
-    private Cholesky(int n, double[][] l, double[][] lt) {
+    private Cholesky(int n, double[][] l, double[][] lt, int threads) {
         this.n = n;
         this.l = l;
         this.lt = lt;
+        this.threads = threads;
     }
 
     /**
@@ -82,7 +85,7 @@ public final class Cholesky {
         }
         int t = n >= PARALLEL_MIN ? Math.max(1, threads) : 1;
         double[][] lt = new double[n][];
-        return factorInPlace(n, l, lt, t) ? new Cholesky(n, l, lt) : null;
+        return factorInPlace(n, l, lt, t) ? new Cholesky(n, l, lt, t) : null;
     }
 
     private static boolean factorInPlace(int n, double[][] l, double[][] lt, int threads) {
@@ -306,25 +309,81 @@ public final class Cholesky {
         return x;
     }
 
-    /** Solves {@code L y = b} in place, column by column of L (an axpy per column, vectorised). */
+    /** Size from which a single-vector solve is split over the factorisation's threads. */
+    public static final int PARALLEL_SOLVE_MIN = 1024;
+
+    /** Rows per step of a split solve: one synchronisation per step. */
+    private static final int SOLVE_BLOCK = 256;
+
+    /**
+     * Solves {@code L y = b} in place, column by column of L (an axpy per column, vectorised). Large systems
+     * are done a block of columns at a time, the update below each block split over threads by rows; every
+     * entry receives its updates in the same order either way, so the result does not depend on the threads.
+     */
     public void forward(double[] x) {
         checkLength(x);
-        for (int i = 0; i < n; i++) {
-            double[] col = lt[i];
-            double xi = x[i] / col[i];
-            x[i] = xi;
-            axpy(-xi, col, x, i + 1, n);
+        int parts = n >= PARALLEL_SOLVE_MIN ? threads : 1;
+        if (parts == 1) {
+            for (int i = 0; i < n; i++) {
+                double[] col = lt[i];
+                double xi = x[i] / col[i];
+                x[i] = xi;
+                axpy(-xi, col, x, i + 1, n);
+            }
+            return;
+        }
+        for (int b0 = 0; b0 < n; b0 += SOLVE_BLOCK) {
+            int b1 = Math.min(n, b0 + SOLVE_BLOCK);
+            for (int i = b0; i < b1; i++) {
+                double[] col = lt[i];
+                double xi = x[i] / col[i];
+                x[i] = xi;
+                axpy(-xi, col, x, i + 1, b1);
+            }
+            if (b1 == n) {
+                break;
+            }
+            int start = b0;
+            int[] cut = Workers.split(b1, n, parts, false);
+            Workers.run(parts, part -> {
+                for (int i = start; i < b1; i++) {
+                    axpy(-x[i], lt[i], x, cut[part], cut[part + 1]);
+                }
+            });
         }
     }
 
-    /** Solves {@code L' x = y} in place, row by row of L (an axpy per row, vectorised). */
+    /** Solves {@code L' x = y} in place, row by row of L (an axpy per row, vectorised); split like {@link #forward}. */
     public void backward(double[] x) {
         checkLength(x);
-        for (int i = n - 1; i >= 0; i--) {
-            double[] row = l[i];
-            double xi = x[i] / row[i];
-            x[i] = xi;
-            axpy(-xi, row, x, 0, i);
+        int parts = n >= PARALLEL_SOLVE_MIN ? threads : 1;
+        if (parts == 1) {
+            for (int i = n - 1; i >= 0; i--) {
+                double[] row = l[i];
+                double xi = x[i] / row[i];
+                x[i] = xi;
+                axpy(-xi, row, x, 0, i);
+            }
+            return;
+        }
+        for (int b1 = n; b1 > 0; b1 -= SOLVE_BLOCK) {
+            int b0 = Math.max(0, b1 - SOLVE_BLOCK);
+            for (int i = b1 - 1; i >= b0; i--) {
+                double[] row = l[i];
+                double xi = x[i] / row[i];
+                x[i] = xi;
+                axpy(-xi, row, x, b0, i);
+            }
+            if (b0 == 0) {
+                break;
+            }
+            int end = b1;
+            int[] cut = Workers.split(0, b0, parts, false);
+            Workers.run(parts, part -> {
+                for (int i = end - 1; i >= b0; i--) {
+                    axpy(-x[i], l[i], x, cut[part], cut[part + 1]);
+                }
+            });
         }
     }
 

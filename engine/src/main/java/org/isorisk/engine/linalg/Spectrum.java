@@ -94,17 +94,10 @@ public record Spectrum(double smallest, double largest, boolean exact) {
             double[] both = lanczos(n, x -> Dense.multiplySymmetric(a, x), true);
             return new Spectrum(both[0], both[1], false);
         }
-        // The two estimates are independent: for large matrices run them side by side on two threads.
-        boolean parallel = n >= Dense.PARALLEL_MIN && Runtime.getRuntime().availableProcessors() > 1;
+        // One after the other, each using the threads itself (products split by rows, solves by blocks).
         double[] result = new double[2];
-        Workers.run(parallel ? 2 : 1, part -> {
-            if (part == 1 || !parallel) {
-                result[1] = lanczos(n, x -> Dense.multiplySymmetric(a, x, 1), false)[1];
-            }
-            if (part == 0) {
-                result[0] = 1.0 / lanczos(n, chol::solve, false)[1];
-            }
-        });
+        result[0] = 1.0 / lanczos(n, chol::solve, false)[1];
+        result[1] = lanczos(n, x -> Dense.multiplySymmetric(a, x), false)[1];
         return new Spectrum(result[0], result[1], false);
     }
 

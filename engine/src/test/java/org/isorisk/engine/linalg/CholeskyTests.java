@@ -82,6 +82,40 @@ class CholeskyTests {
     }
 
     @Test
+    void largeSolvesSplitOverThreadsGiveBitForBitTheSameSolution() {
+        int n = Cholesky.PARALLEL_SOLVE_MIN + 37;
+        // Diagonally dominant, hence positive definite, and cheap to build at this size.
+        SplittableRandom r = new SplittableRandom(11);
+        double[][] a = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < i; j++) {
+                double v = r.nextDouble() - 0.5;
+                a[i][j] = v;
+                a[j][i] = v;
+            }
+            a[i][i] = n;
+        }
+        double[] b = new double[n];
+        for (int i = 0; i < n; i++) {
+            b[i] = r.nextDouble();
+        }
+        double[] one = Cholesky.factor(a, 1).solve(b);
+        Cholesky two = Cholesky.factor(a, 2);
+        assertArrayEquals(one, two.solve(b), 0.0);
+        // And it solves the system: residual of a well-conditioned system at rounding level.
+        double worst = 0;
+        double[] x = two.solve(b);
+        for (int i = 0; i < n; i++) {
+            double s = 0;
+            for (int j = 0; j < n; j++) {
+                s += a[i][j] * x[j];
+            }
+            worst = Math.max(worst, Math.abs(s - b[i]));
+        }
+        assertTrue(worst <= Tolerances.TIGHT * n, "residual " + worst);
+    }
+
+    @Test
     void solvesMatchCommonsMathAndSeveralRightHandSidesMatchOneAtATime() {
         for (int n : new int[] {1, 5, 64, 130, 400}) {
             double[][] a = spd(n, 200 + n, 0.05);
