@@ -1,6 +1,5 @@
 package org.isorisk.engine.linalg;
 
-
 /**
  * Cholesky factor {@code Σ = L L'} of a symmetric positive definite matrix, with single and multiple
  * right-hand-side solves.
@@ -20,16 +19,16 @@ package org.isorisk.engine.linalg;
  * compiler cannot prove that differently offset accesses of one array do not overlap and keeps it scalar.
  * The trailing update and the panel solve are split by rows (balanced by work) over a small shared pool of
  * daemon threads when the matrix is large. The columns of L are kept as well (built from the panels as they
- * are solved), so that the forward solve, like the backward one, runs as vectorised axpy loops; this costs
- * n² more doubles of memory.
+ * are solved), so that the forward solve, like the backward one, runs as vectorised axpy loops; stored at
+ * full length (for the same reason of equal indices) they cost n² more doubles of memory.
  *
  * <p>Instances are immutable and safe to share between threads.
  */
 public final class Cholesky {
     /**
-     * Block size (columns per panel). 64 balances the panel solve (scalar-heavy, cost ∝ n²·block) against
-     * the trailing update's reuse of each loaded row (∝ n³/block memory traffic); measured best among
-     * 32–128 on a 2-core AVX-512 machine at n = 500–2000.
+     * Block size (columns per panel). It balances the panel work (∝ n²·block) against the trailing update's
+     * memory traffic (∝ n³/block); on a 2-core AVX-512 machine 64 and 128 measured about equal at n = 2000,
+     * and 48 or 256 slower.
      */
     public static final int BLOCK = 64;
 
