@@ -82,8 +82,8 @@ class CholeskyTests {
     }
 
     @Test
-    void largeSolvesSplitOverThreadsGiveBitForBitTheSameSolution() {
-        int n = Cholesky.PARALLEL_SOLVE_MIN + 37;
+    void largeSystemsFactoredWithTwoThreadsGiveBitForBitTheSameSolution() {
+        int n = 1061;
         // Diagonally dominant, hence positive definite, and cheap to build at this size.
         SplittableRandom r = new SplittableRandom(11);
         double[][] a = new double[n][n];
