@@ -242,6 +242,11 @@ public final class Cholesky {
         return n;
     }
 
+    /** Row i of L, entries 0..i (shared with this factor: not to be modified). */
+    double[] row(int i) {
+        return l[i];
+    }
+
     /** Entry (i, j) of L (zero above the diagonal). */
     public double factorEntry(int i, int j) {
         return j > i ? 0 : l[i][j];
