@@ -68,6 +68,11 @@ public final class Cholesky {
      * @return the factor, or null when a pivot is not positive or not finite (not positive definite)
      */
     public static Cholesky factor(double[][] a, int threads) {
+        return factor(a, threads, BLOCK);
+    }
+
+    /** {@link #factor(double[][], int)} with another block size (for tests and tuning). */
+    static Cholesky factor(double[][] a, int threads, int block) {
         int n = a.length;
         double[][] l = new double[n][];
         for (int i = 0; i < n; i++) {
@@ -77,14 +82,14 @@ public final class Cholesky {
             l[i] = java.util.Arrays.copyOf(a[i], i + 1);
         }
         int t = n >= PARALLEL_MIN ? Math.max(1, threads) : 1;
-        return factorInPlace(n, l, t) ? new Cholesky(n, l) : null;
+        return factorInPlace(n, l, t, Math.max(4, block)) ? new Cholesky(n, l) : null;
     }
 
-    private static boolean factorInPlace(int n, double[][] l, int threads) {
-        double[][] panel = n > BLOCK ? new double[BLOCK][n] : null;
-        for (int start = 0; start < n; start += BLOCK) {
+    private static boolean factorInPlace(int n, double[][] l, int threads, int block) {
+        double[][] panel = n > block ? new double[block][n] : null;
+        for (int start = 0; start < n; start += block) {
             int k0 = start;
-            int kb = Math.min(BLOCK, n - k0);
+            int kb = Math.min(block, n - k0);
             if (!factorDiagonalBlock(l, k0, kb)) {
                 return false;
             }

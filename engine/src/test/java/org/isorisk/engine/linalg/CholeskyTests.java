@@ -70,6 +70,21 @@ class CholeskyTests {
     }
 
     @Test
+    void everyBlockSizeGivesTheSameFactorToRounding() {
+        double[][] a = spd(150, 21, 0.05);
+        Cholesky reference = Cholesky.factor(a, 1, 150); // one block: the unblocked algorithm
+        for (int block : new int[] {4, 7, 16, 64, 100}) {
+            Cholesky c = Cholesky.factor(a, 1, block);
+            for (int i = 0; i < a.length; i++) {
+                for (int j = 0; j <= i; j++) {
+                    assertEquals(reference.factorEntry(i, j), c.factorEntry(i, j), Tolerances.TIGHT * Math.sqrt(a[i][i]),
+                            "block " + block + " entry " + i + "," + j);
+                }
+            }
+        }
+    }
+
+    @Test
     void twoThreadsGiveBitForBitTheSameFactorAsOne() {
         double[][] a = spd(449, 5, 0.05);
         Cholesky one = Cholesky.factor(a, 1);
