@@ -16,7 +16,7 @@ public final class Factored {
     private final AssetUniverse universe;
     private final double[][] sigma;
     private final Cholesky chol;
-    private final Spectrum spectrum;
+    private volatile Spectrum spectrum;
 
     private Factored(AssetUniverse universe, double[][] sigma, Cholesky chol, Spectrum spectrum) {
         this.universe = universe;
@@ -38,8 +38,7 @@ public final class Factored {
             Spectrum sp = Spectrum.of(sigma);
             throw notPositiveDefinite(u, sigma, sp);
         }
-        Spectrum sp = Spectrum.of(sigma, chol);
-        return new Factored(u, sigma, chol, sp);
+        return new Factored(u, sigma, chol, null);
     }
 
     static NoSolutionException notPositiveDefinite(AssetUniverse u, double[][] sigma, Spectrum sp) {
@@ -85,8 +84,14 @@ public final class Factored {
         return chol;
     }
 
+    /** Extreme eigenvalues of Σ, computed on first use (an iterative estimate above a few hundred assets). */
     public Spectrum spectrum() {
-        return spectrum;
+        Spectrum sp = spectrum;
+        if (sp == null) {
+            sp = Spectrum.of(sigma, chol);
+            spectrum = sp;
+        }
+        return sp;
     }
 
     /** Solves {@code Σ x = b}. */

@@ -34,11 +34,20 @@ public final class Kkt {
                                       double[] lower, double[] upper, double[] lowerPrices, double[] upperPrices,
                                       double condition, double threshold, boolean convex) {
         int n = w.length;
+        // Skipping exact zeros of w gives the same sums and makes long-only portfolios cheap to certify.
+        int[] nz = new int[n];
+        int nnz = 0;
+        for (int j = 0; j < n; j++) {
+            if (w[j] != 0) {
+                nz[nnz++] = j;
+            }
+        }
         double[] grad = new double[n];
         for (int i = 0; i < n; i++) {
             double s = 0;
             double[] r = sigma[i];
-            for (int j = 0; j < n; j++) {
+            for (int q = 0; q < nnz; q++) {
+                int j = nz[q];
                 s += r[j] * w[j];
             }
             grad[i] = 2 * s;
