@@ -93,8 +93,21 @@ public final class Allocator {
      * @throws InputException      when the mandate has groups or general constraints, or an unbounded asset
      */
     public static Frontier mandateFrontier(AssetUniverse u, Mandate m, double[] targets, SolverSettings settings) {
+        double[] copy = targets.clone();
+        return mandateFrontier(u, m, range -> copy, settings);
+    }
+
+    /**
+     * The exact mandate frontier with points at targets chosen once the achievable range is known.
+     *
+     * @param targetsForRange given {lowest return, minimum-variance return, highest return} (decimals), returns
+     *                        the targets to sample
+     */
+    public static Frontier mandateFrontier(AssetUniverse u, Mandate m,
+                                           java.util.function.Function<double[], double[]> targetsForRange,
+                                           SolverSettings settings) {
         MandateSweep sweep = MandateSweep.of(u, m, settings == null ? SolverSettings.defaults() : settings);
-        return sweep.frontier(targets);
+        return sweep.frontier(targetsForRange);
     }
 
     /** True when {@link Method#CRITICAL_LINE} can solve the mandate (what {@link Method#AUTO} checks). */

@@ -475,7 +475,8 @@ final class MandateSweep {
             }
         }
         int rest = n - shown.size();
-        shown.sort(Comparator.<Integer>comparingDouble(i -> -x[i]).thenComparingInt(i -> i));
+        // Rounded so that weights equal up to the last digits list in asset order.
+        shown.sort(Comparator.<Integer>comparingDouble(i -> -Math.rint(x[i] * 1e10)).thenComparingInt(i -> i));
         List<String> parts = new ArrayList<>();
         int limit = 8;
         for (int q = 0; q < Math.min(limit, shown.size()); q++) {
@@ -699,12 +700,15 @@ final class MandateSweep {
     }
 
     /**
-     * The mandate frontier with exact points at the given targets; targets outside the achievable range are
+     * The mandate frontier with exact points at the targets chosen for its range {lowest, minimum-variance,
+     * highest return}; targets outside the achievable range are
      * reported in {@link Frontier#rejected()}, not dropped.
      */
-    Frontier frontier(double[] targets) {
+    Frontier frontier(java.util.function.Function<double[], double[]> targetsForRange) {
         List<Corner> eff = efficientCorners();
         List<Corner> ineff = inefficientCorners();
+        double[] targets = targetsForRange.apply(new double[] {ineff.get(0).portfolio().expectedReturn(),
+            eff.get(0).portfolio().expectedReturn(), eff.get(eff.size() - 1).portfolio().expectedReturn()});
         List<Solution> points = new ArrayList<>();
         List<RejectedTarget> rejected = new ArrayList<>();
         double[] sorted = targets.clone();
