@@ -9,7 +9,10 @@ import java.util.List;
  * @param portfolio   the corner portfolio with its multipliers (including {@code target_return})
  * @param asset       the asset that enters or leaves the free set here (several joined by ", " at a degenerate
  *                    corner; null at an end of the frontier where nothing changes)
- * @param change      what happens: {@code start}, {@code enters}, {@code leaves}, {@code several}, {@code end}
+ * @param change      what happens: {@code max-return} (the highest-return end), {@code min-return} (the
+ *                    lowest-return end of the inefficient branch), {@code enters}, {@code leaves}, {@code several}
+ *                    (several assets change at one degenerate corner), {@code min-variance} (the
+ *                    minimum-variance end)
  * @param description a plain sentence, e.g. "As the target falls below 5.10 %, Cash enters the free set ..."
  * @param free        the free set on the stretch from this corner towards the minimum-variance portfolio
  *                    (asset names in universe order; copied); empty when not known

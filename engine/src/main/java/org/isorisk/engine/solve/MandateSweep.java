@@ -290,9 +290,10 @@ final class MandateSweep {
     }
 
     /**
-     * Merges consecutive walk points with the same portfolio (the λ = ∞ start and the first event; several
-     * events at one λ; stretches where every free asset has the same return): the merged corner keeps the lowest
-     * λ (the left derivative of V* along the walk) and the state after all its events.
+     * Merges consecutive walk points that are the same corner: the λ = ∞ start with the first event (the walk
+     * starts on a stretch where nothing moves), and several events at one λ. Points with the same weights but
+     * different λ stay apart: between them the frontier has a kink, the return-target multiplier is not unique,
+     * and each neighbouring stretch needs its own end value.
      */
     private List<CriticalLine.Point> merge(List<CriticalLine.Point> raw) {
         List<CriticalLine.Point> out = new ArrayList<>();
@@ -300,7 +301,9 @@ final class MandateSweep {
         for (CriticalLine.Point p : raw) {
             if (!out.isEmpty()) {
                 CriticalLine.Point last = out.get(out.size() - 1);
-                if (Double.isInfinite(last.lambda()) || maxDiff(last.weights(), p.weights()) <= tol) {
+                boolean sameLambda = Double.isInfinite(last.lambda())
+                        || Math.abs(last.lambda() - p.lambda()) <= 1e-12 * Math.max(1, Math.abs(p.lambda()));
+                if (sameLambda && (Double.isInfinite(last.lambda()) || maxDiff(last.weights(), p.weights()) <= tol)) {
                     List<CriticalLine.Event> ev = new ArrayList<>(last.events());
                     ev.addAll(p.events());
                     out.set(out.size() - 1, new CriticalLine.Point(p.lambda(), p.weights(), p.budgetPrice(), p.state(),
@@ -350,7 +353,7 @@ final class MandateSweep {
     /** The minimum-variance portfolio with expected return exactly {@code target} (decimal). */
     Solution target(double target) {
         double tol = 1e-12 * Math.max(1, Math.abs(target));
-        List<CriticalLine.Point> top = efficient(target);
+        List<CriticalLine.Point> top = efficient(target - tol);
         double mMax = dot(mu, top.get(0).weights());
         if (target > mMax + tol) {
             throw aboveMaximum(target, top.get(0));
@@ -385,8 +388,14 @@ final class MandateSweep {
             rets[j] = dot(dir, pts.get(j).weights());
         }
         List<String> notes = new ArrayList<>();
-        if (t >= rets[0]) {
-            CriticalLine.Point p = pts.get(0);
+        double tol = 1e-12 * Math.max(1, Math.abs(t));
+        if (t >= rets[0] - tol) {
+            // The end of the range; when several walk points share it (a kink), the smallest λ is reported.
+            int last = 0;
+            while (last + 1 < k && rets[last + 1] >= rets[0] - tol) {
+                last++;
+            }
+            CriticalLine.Point p = pts.get(last);
             notes.add(String.format(Locale.ROOT, "The target is the %s return the mandate allows; the return-target "
                     + "shadow price shown is the one-sided derivative from inside the frontier (any %s value also "
                     + "satisfies the optimality conditions).", ineff ? "lowest" : "highest", ineff ? "smaller" : "larger"));
@@ -397,7 +406,7 @@ final class MandateSweep {
                     p.condition());
         }
         int j = 0;
-        while (j + 1 < k - 1 && rets[j + 1] > t) {
+        while (j + 1 < k - 1 && rets[j + 1] >= t) {
             j++;
         }
         CriticalLine.Point a = pts.get(j);
@@ -648,11 +657,11 @@ final class MandateSweep {
         List<String> sentences = new ArrayList<>();
         String change;
         if (first) {
-            change = "start";
+            change = ineff ? "min-return" : "max-return";
             sentences.add(String.format(Locale.ROOT, "%s return the mandate allows, %s: %s.",
                     ineff ? "Lowest" : "Highest", Explain.percent(ret), describe(p)));
         } else if (last && p.events().isEmpty()) {
-            change = "end";
+            change = "min-variance";
         } else {
             change = p.events().size() == 1 ? verb(p.events().get(0).kind()) : "several";
         }
@@ -660,7 +669,7 @@ final class MandateSweep {
             sentences.add(sentence(e, ret, ineff));
         }
         if (last) {
-            change = first ? change : "end";
+            change = first ? change : "min-variance";
             sentences.add(String.format(Locale.ROOT, "Minimum-variance portfolio under the bounds (return %s): the "
                     + "return target no longer binds, its shadow price is zero.", Explain.percent(ret)));
         }
