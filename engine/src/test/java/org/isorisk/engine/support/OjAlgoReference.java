@@ -30,23 +30,39 @@ public final class OjAlgoReference {
                 row[j] *= 2; // ojAlgo minimises ½x'Qx − c'x; Q = 2Σ makes it w'Σw
             }
         }
-        int eq = Double.isNaN(target) ? 1 : 2;
+        // An asset pinned by equal bounds goes in as an equality row: two opposing inequalities on the same
+        // variable are degenerate for an active-set method, and ojAlgo then reports a non-optimal point as optimal.
+        int pinned = 0;
+        for (int i = 0; i < n; i++) {
+            pinned += m.lower(i) == m.upper(i) ? 1 : 0;
+        }
+        int eq = (Double.isNaN(target) ? 1 : 2) + pinned;
         double[][] ae = new double[eq][n];
         double[] be = new double[eq];
         java.util.Arrays.fill(ae[0], 1.0);
         be[0] = m.budget();
-        if (eq == 2) {
+        int e = 1;
+        if (!Double.isNaN(target)) {
             ae[1] = u.expectedReturns();
             be[1] = target;
+            e = 2;
         }
         int rows = 0;
         for (int i = 0; i < n; i++) {
+            if (m.lower(i) == m.upper(i)) {
+                ae[e][i] = 1;
+                be[e++] = m.lower(i);
+                continue;
+            }
             rows += (Double.isFinite(m.upper(i)) ? 1 : 0) + (Double.isFinite(m.lower(i)) ? 1 : 0);
         }
         double[][] ai = new double[rows][n];
         double[] bi = new double[rows];
         int r = 0;
         for (int i = 0; i < n; i++) {
+            if (m.lower(i) == m.upper(i)) {
+                continue;
+            }
             if (Double.isFinite(m.upper(i))) {
                 ai[r][i] = 1;
                 bi[r++] = m.upper(i);
