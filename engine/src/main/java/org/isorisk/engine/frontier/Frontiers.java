@@ -21,9 +21,10 @@ public final class Frontiers {
 
     /**
      * The exact frontier under a budget + bounds (+ fixed weights) mandate by the critical line method: every
-     * corner portfolio of the efficient branch (minimum-variance end to maximum-return end) and of the inefficient
-     * branch, each a certified solution with its multipliers, and exact portfolios at the grid's targets. Targets
-     * outside the achievable range are listed in {@link Frontier#rejected()} with the reason.
+     * corner portfolio of the efficient branch (minimum-variance end to maximum-return end), each a certified
+     * solution with its multipliers, and exact portfolios at the grid's targets (targets below the
+     * minimum-variance return are solved on the inefficient branch and say so). Targets outside the achievable
+     * range are listed in {@link Frontier#rejected()} with the reason.
      *
      * @param universe assets and assumptions (not modified)
      * @param mandate  budget, per-asset bounds and fixed weights
@@ -32,8 +33,19 @@ public final class Frontiers {
      * @param settings tolerances and limits; null for the defaults
      */
     public static Frontier mandate(AssetUniverse universe, Mandate mandate, Grid grid, SolverSettings settings) {
+        return mandate(universe, mandate, grid, false, settings);
+    }
+
+    /**
+     * The exact mandate frontier as {@link #mandate(AssetUniverse, Mandate, Grid, SolverSettings)}, optionally
+     * with the corners of the inefficient branch too ({@link Frontier#inefficientCorners()}, from the lowest
+     * return the mandate allows up to the minimum-variance portfolio).
+     */
+    public static Frontier mandate(AssetUniverse universe, Mandate mandate, Grid grid, boolean inefficientBranch,
+                                   SolverSettings settings) {
         Grid g = grid == null ? Grid.none() : grid;
-        return Allocator.mandateFrontier(universe, mandate, range -> g.targets(range[1], range[2]), settings);
+        return Allocator.mandateFrontier(universe, mandate, range -> g.targets(range[1], range[2]), inefficientBranch,
+                settings);
     }
 
     /**

@@ -81,8 +81,8 @@ public final class Allocator {
     }
 
     /**
-     * The exact mandate frontier by the critical line method: corner portfolios of both branches (each a
-     * certified solution with its multipliers) and exact portfolios at {@code targets}; targets outside the
+     * The exact mandate frontier by the critical line method: corner portfolios of both branches, efficient and
+     * inefficient (each a certified solution with its multipliers), and exact portfolios at {@code targets}; targets outside the
      * achievable range are listed in {@link Frontier#rejected()} with the reason.
      *
      * @param u        assets and assumptions
@@ -94,7 +94,7 @@ public final class Allocator {
      */
     public static Frontier mandateFrontier(AssetUniverse u, Mandate m, double[] targets, SolverSettings settings) {
         double[] copy = targets.clone();
-        return mandateFrontier(u, m, range -> copy, settings);
+        return mandateFrontier(u, m, range -> copy, true, settings);
     }
 
     /**
@@ -102,12 +102,13 @@ public final class Allocator {
      *
      * @param targetsForRange given {lowest return, minimum-variance return, highest return} (decimals), returns
      *                        the targets to sample
+     * @param withInefficient also list the corners of the inefficient branch (below the minimum-variance return)
      */
     public static Frontier mandateFrontier(AssetUniverse u, Mandate m,
                                            java.util.function.Function<double[], double[]> targetsForRange,
-                                           SolverSettings settings) {
+                                           boolean withInefficient, SolverSettings settings) {
         MandateSweep sweep = MandateSweep.of(u, m, settings == null ? SolverSettings.defaults() : settings);
-        return sweep.frontier(targetsForRange);
+        return sweep.frontier(targetsForRange, withInefficient);
     }
 
     /** True when {@link Method#CRITICAL_LINE} can solve the mandate (what {@link Method#AUTO} checks). */

@@ -447,28 +447,28 @@ final class CriticalLine {
         return b.lambda > a.lambda ? b : a;
     }
 
-    /** For every out asset i: {@code sa_i = Σ_{j∈F} σ_ij α_j}, {@code sb_i = Σ_{j∈F} σ_ij β_j}. */
+    /**
+     * For every asset i: {@code sa_i = Σ_{j∈F} σ_ij α_j}, {@code sb_i = Σ_{j∈F} σ_ij β_j}, as sums of the free
+     * assets' rows (Σ is symmetric): whole rows stream through memory, where gathering the free columns of every
+     * row would touch nearly all of Σ at each corner.
+     */
     private void crossProducts(double[] sa, double[] sb) {
         double[][] sigma = p.sigma;
-        int m = nf;
-        int[] f = free;
-        double[] al = alpha;
-        double[] be = beta;
-        for (int i = 0; i < n; i++) {
-            byte s = state[i];
-            if (s != LOWER && s != UPPER) {
-                continue;
+        for (int k = 0; k < nf; k++) {
+            double[] row = sigma[free[k]];
+            double a = alpha[k];
+            double b = beta[k];
+            if (b == 0) {
+                for (int i = 0; i < n; i++) {
+                    sa[i] += row[i] * a;
+                }
+            } else {
+                for (int i = 0; i < n; i++) {
+                    double v = row[i];
+                    sa[i] += v * a;
+                    sb[i] += v * b;
+                }
             }
-            double[] row = sigma[i];
-            double x = 0;
-            double y = 0;
-            for (int k = 0; k < m; k++) {
-                double v = row[f[k]];
-                x += v * al[k];
-                y += v * be[k];
-            }
-            sa[i] = x;
-            sb[i] = y;
         }
     }
 

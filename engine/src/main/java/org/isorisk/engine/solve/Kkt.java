@@ -42,7 +42,7 @@ public final class Kkt {
                 nz[nnz++] = j;
             }
         }
-        double[] grad = new double[n];
+        double[] sw = new double[n];
         for (int i = 0; i < n; i++) {
             double s = 0;
             double[] r = sigma[i];
@@ -50,7 +50,25 @@ public final class Kkt {
                 int j = nz[q];
                 s += r[j] * w[j];
             }
-            grad[i] = 2 * s;
+            sw[i] = s;
+        }
+        return certifyProduct(sw, w, rows, rowPrices, lower, upper, lowerPrices, upperPrices, condition, threshold,
+                convex);
+    }
+
+    /**
+     * The same certificate from {@code Σw} computed by the caller afresh from {@code w} and Σ (never taken from a
+     * solver's running state), for callers that can form it faster, e.g. from the rows of a symmetric Σ.
+     *
+     * @param sigmaW {@code Σw} (not modified)
+     */
+    public static Certificate certifyProduct(double[] sigmaW, double[] w, List<LinearConstraint> rows,
+                                             double[] rowPrices, double[] lower, double[] upper, double[] lowerPrices,
+                                             double[] upperPrices, double condition, double threshold, boolean convex) {
+        int n = w.length;
+        double[] grad = new double[n];
+        for (int i = 0; i < n; i++) {
+            grad[i] = 2 * sigmaW[i];
         }
         double[] residual = grad.clone();
         double[] scale = new double[n];

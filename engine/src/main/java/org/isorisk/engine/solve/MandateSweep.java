@@ -596,7 +596,7 @@ final class MandateSweep {
                 mult.add(multiplier("upper:" + a, up[i], vol, at));
             }
         }
-        Certificate cert = Kkt.certify(sigma, x, allRows, rowPrices, lower, upper, lp, up,
+        Certificate cert = Kkt.certifyProduct(sx, x, allRows, rowPrices, lower, upper, lp, up,
                 condition, settings.numericalTolerance(), true);
         List<String> all = new ArrayList<>(notes);
         all.add(CONVEX_NOTE);
@@ -709,15 +709,16 @@ final class MandateSweep {
     }
 
     /**
-     * The mandate frontier with exact points at the targets chosen for its range {lowest, minimum-variance,
-     * highest return}; targets outside the achievable range are
+     * The mandate frontier (efficient corners, and the inefficient ones when asked) with exact points at the
+     * targets chosen for its range {lowest, minimum-variance, highest return}; targets outside the achievable range are
      * reported in {@link Frontier#rejected()}, not dropped.
      */
-    Frontier frontier(java.util.function.Function<double[], double[]> targetsForRange) {
+    Frontier frontier(java.util.function.Function<double[], double[]> targetsForRange, boolean withInefficient) {
         List<Corner> eff = efficientCorners();
-        List<Corner> ineff = inefficientCorners();
-        double[] targets = targetsForRange.apply(new double[] {ineff.get(0).portfolio().expectedReturn(),
-            eff.get(0).portfolio().expectedReturn(), eff.get(eff.size() - 1).portfolio().expectedReturn()});
+        List<Corner> ineff = withInefficient ? inefficientCorners() : List.of();
+        double lowest = dot(mu, lowEnd().get(0).weights());
+        double[] targets = targetsForRange.apply(new double[] {lowest, eff.get(0).portfolio().expectedReturn(),
+            eff.get(eff.size() - 1).portfolio().expectedReturn()});
         List<Solution> points = new ArrayList<>();
         List<RejectedTarget> rejected = new ArrayList<>();
         double[] sorted = targets.clone();
@@ -731,7 +732,6 @@ final class MandateSweep {
         }
         double mv = eff.get(0).portfolio().expectedReturn();
         double top = eff.get(eff.size() - 1).portfolio().expectedReturn();
-        double lowest = ineff.get(0).portfolio().expectedReturn();
         return new Frontier(eff, points, merton(), mv, top, ineff, lowest, rejected);
     }
 }

@@ -105,7 +105,7 @@ class FrontiersTests {
     void aFrontierEvaluatesAnyTargetExactlyFromItsCorners() {
         AssetUniverse u = FactorModels.universe(40, 12);
         Mandate m = FactorModels.boxed(40, 0, 0.1);
-        Frontier fr = Frontiers.mandate(u, m, Grid.none(), null);
+        Frontier fr = Frontiers.mandate(u, m, Grid.none(), true, null);
         for (double f : new double[] {-0.7, -0.2, 0.0, 0.13, 0.5, 0.77, 1.0}) {
             double t = f >= 0 ? fr.minReturn() + f * (fr.maxReturn() - fr.minReturn())
                     : fr.minReturn() + f * (fr.minReturn() - fr.lowestReturn());
