@@ -218,13 +218,14 @@ final class CriticalLine {
             rest -= w0[i];
         }
         int marginal = -1;
+        double dust = 1e-15 * Math.max(1, Math.abs(p.budget)); // rounding left over by the sums above
         for (int k = 0; k < order.length; k++) {
             int i = order[k];
             double room = p.hi[i] - p.lo[i];
             double add = Math.min(room, Math.max(0, rest));
             w0[i] += add;
             rest -= add;
-            if (rest <= 0 || k == order.length - 1) {
+            if (rest <= dust || k == order.length - 1) {
                 marginal = k;
                 break;
             }

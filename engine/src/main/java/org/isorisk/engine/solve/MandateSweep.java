@@ -267,7 +267,7 @@ final class MandateSweep {
 
     private List<CriticalLine.Point> efficient(double stopAt) {
         if (efficient == null || (!efficientComplete && stopAt < lastReturn(efficient, mu))) {
-            List<CriticalLine.Point> raw = CriticalLine.walk(problem, mu, stopAt, settings.maxIterations());
+            List<CriticalLine.Point> raw = walk(mu, stopAt);
             efficientComplete = raw.get(raw.size() - 1).lambda() == 0;
             efficient = merge(raw);
         }
@@ -280,9 +280,24 @@ final class MandateSweep {
 
     private List<CriticalLine.Point> inefficient() {
         if (inefficient == null) {
-            inefficient = merge(CriticalLine.walk(problem, negMu, Double.NEGATIVE_INFINITY, settings.maxIterations()));
+            inefficient = merge(walk(negMu, Double.NEGATIVE_INFINITY));
         }
         return inefficient;
+    }
+
+    /**
+     * Runs the walk; when it meets a singular free block, Σ's own check speaks first, since its message names a
+     * perfectly correlated pair when there is one.
+     */
+    private List<CriticalLine.Point> walk(double[] dir, double stopAt) {
+        try {
+            return CriticalLine.walk(problem, dir, stopAt, settings.maxIterations());
+        } catch (NoSolutionException e) {
+            if (e.reason() == NoSolutionException.Reason.NOT_CONVEX) {
+                factored();
+            }
+            throw e;
+        }
     }
 
     private double lastReturn(List<CriticalLine.Point> pts, double[] dir) {
@@ -374,7 +389,7 @@ final class MandateSweep {
         if (inefficient != null) {
             return inefficient;
         }
-        return merge(CriticalLine.walk(problem, negMu, Double.POSITIVE_INFINITY, settings.maxIterations()));
+        return merge(walk(negMu, Double.POSITIVE_INFINITY));
     }
 
     /**
