@@ -258,9 +258,29 @@ final class CriticalLine {
             }
             List<Point> facePath = walk(face, tieBreak, Double.NEGATIVE_INFINITY, maxIterations);
             Point end = facePath.get(facePath.size() - 1);
+            // The face's bounds are tighter (implied by its own small budget), so read each tied asset's state
+            // from its weight against this problem's bounds.
+            double near = 1e-12 * Math.max(1, Math.abs(p.budget));
             for (int i : tied) {
-                state[i] = end.state()[i];
-                w[i] = end.weights()[i];
+                double x = end.weights()[i];
+                if (Math.abs(x - p.hi[i]) <= near && !p.hiImplied[i]) {
+                    state[i] = UPPER;
+                    w[i] = p.hi[i];
+                } else if (Math.abs(x - p.lo[i]) <= near && !p.loImplied[i]) {
+                    state[i] = LOWER;
+                    w[i] = p.lo[i];
+                } else {
+                    state[i] = FREE;
+                    w[i] = x;
+                }
+            }
+            boolean anyFree = false;
+            for (int i : tied) {
+                anyFree |= state[i] == FREE;
+            }
+            if (!anyFree) {
+                // Every tied asset sits at a bound of this problem: the marginal one carries the budget.
+                state[mi] = FREE;
             }
         } else {
             state[mi] = FREE;

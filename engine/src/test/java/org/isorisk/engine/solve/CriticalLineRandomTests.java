@@ -22,10 +22,11 @@ class CriticalLineRandomTests {
     @Test
     void randomMandatesWithMinimumsMaximumsFixedWeightsAndTiesAgreeWithOjAlgo() {
         // Independent reference: ojAlgo's active-set QP (weights only). Fixed seeds; mandates drawn so that they are
-        // feasible, with ties in the expected returns and assets pinned by equal bounds in some of them.
+        // feasible, with ties in the expected returns, assets pinned by equal bounds, and maxima that barely
+        // cover the budget in some of them.
         Random rnd = new Random(99);
         int solved = 0;
-        for (int trial = 0; trial < 40; trial++) {
+        for (int trial = 0; trial < 90; trial++) {
             int n = 4 + rnd.nextInt(12);
             AssetUniverse base = FactorModels.universe(n, 1000 + trial);
             double[] mu = base.expectedReturns();
@@ -54,6 +55,15 @@ class CriticalLineRandomTests {
             for (int i = 0; i < n; i++) {
                 hi[i] = Math.max(lo[i], Math.rint(cap * (0.6 + 0.8 * rnd.nextDouble()) * 100) / 100);
                 sumHi += hi[i];
+            }
+            if (trial % 6 == 2 && sumHi > 1) {
+                // Maxima that barely cover the budget: each minimum is then implied by the others' maxima.
+                double scale = 1.02 / sumHi;
+                sumHi = 0;
+                for (int i = 0; i < n; i++) {
+                    hi[i] = Math.max(lo[i], hi[i] * scale);
+                    sumHi += hi[i];
+                }
             }
             if (sumLo > 1 || sumHi < 1) {
                 continue;
@@ -98,6 +108,6 @@ class CriticalLineRandomTests {
                 solved++;
             }
         }
-        assertTrue(solved > 100, "enough comparisons: " + solved);
+        assertTrue(solved > 250, "enough comparisons: " + solved);
     }
 }
