@@ -1,16 +1,16 @@
 package org.isorisk.engine;
 
-/** The test suite's tolerances, defined once. */
+/** The tolerances every test uses, defined once. */
 public final class Tolerances {
     private Tolerances() {
     }
 
-    /** Agreement of two exact computations in double precision. */
+    /** Agreement expected from exact arithmetic done in double precision. */
     public static final double TIGHT = 1e-12;
-    /** Closed-form results against published formulas. */
+    /** Closed-form solutions against each other or a reference formula. */
     public static final double CLOSED_FORM = 1e-10;
-    /** Results of iterative or finite-difference methods. */
+    /** Iterative or numerical methods, finite differences. */
     public static final double NUMERICAL = 1e-7;
-    /** General agreement between independent exact methods. */
+    /** Everything else. */
     public static final double GENERAL = 1e-8;
 }

@@ -60,7 +60,7 @@ public final class Frontiers {
      */
     public static Frontier unconstrained(AssetUniverse universe, double budget, Grid grid, SolverSettings settings) {
         SolverSettings s = settings == null ? SolverSettings.defaults() : settings;
-        Factored f = Factored.of(universe);
+        Factored f = Factored.of(universe, s);
         MertonScalars ms = Allocator.merton(f, budget);
         double low = ms.minimumVarianceReturn();
         double top = Double.NEGATIVE_INFINITY;

@@ -1,6 +1,7 @@
 package org.isorisk.engine.solve;
 
 import java.util.List;
+import org.isorisk.engine.linalg.Dense;
 import org.isorisk.engine.model.Certificate;
 import org.isorisk.engine.model.LinearConstraint;
 import org.isorisk.engine.model.Relation;
@@ -33,38 +34,19 @@ public final class Kkt {
     public static Certificate certify(double[][] sigma, double[] w, List<LinearConstraint> rows, double[] rowPrices,
                                       double[] lower, double[] upper, double[] lowerPrices, double[] upperPrices,
                                       double condition, double threshold, boolean convex) {
-        int n = w.length;
-        // Skipping exact zeros of w gives the same sums and makes long-only portfolios cheap to certify.
-        int[] nz = new int[n];
-        int nnz = 0;
-        for (int j = 0; j < n; j++) {
-            if (w[j] != 0) {
-                nz[nnz++] = j;
-            }
-        }
-        double[] sw = new double[n];
-        for (int i = 0; i < n; i++) {
-            double s = 0;
-            double[] r = sigma[i];
-            for (int q = 0; q < nnz; q++) {
-                int j = nz[q];
-                s += r[j] * w[j];
-            }
-            sw[i] = s;
-        }
-        return certifyProduct(sw, w, rows, rowPrices, lower, upper, lowerPrices, upperPrices, condition, threshold,
-                convex);
+        return certifyProduct(multiply(sigma, w), w, rows, rowPrices, lower, upper, lowerPrices, upperPrices,
+                condition, threshold, convex);
     }
 
     /**
-     * The same certificate from {@code Σw} computed by the caller afresh from {@code w} and Σ (never taken from a
-     * solver's running state), for callers that can form it faster, e.g. from the rows of a symmetric Σ.
+     * The same certificate from an already computed {@code Σw} (which the caller also needs, e.g. for the
+     * variance), so that one product serves both.
      *
-     * @param sigmaW {@code Σw} (not modified)
+     * @param sigmaW {@code Σw} computed from the full covariance and the candidate weights (not modified)
      */
-    public static Certificate certifyProduct(double[] sigmaW, double[] w, List<LinearConstraint> rows,
-                                             double[] rowPrices, double[] lower, double[] upper, double[] lowerPrices,
-                                             double[] upperPrices, double condition, double threshold, boolean convex) {
+    static Certificate certifyProduct(double[] sigmaW, double[] w, List<LinearConstraint> rows, double[] rowPrices,
+                                      double[] lower, double[] upper, double[] lowerPrices, double[] upperPrices,
+                                      double condition, double threshold, boolean convex) {
         int n = w.length;
         double[] grad = new double[n];
         for (int i = 0; i < n; i++) {
@@ -124,5 +106,10 @@ public final class Kkt {
         }
         double unit = worstScale > 0 ? worstScale : 1;
         return new Certificate(worstResidual / unit, primal, dual / unit, comp / unit, condition, threshold, convex);
+    }
+
+    /** {@code Σw} over the full (symmetric) matrix. */
+    static double[] multiply(double[][] sigma, double[] w) {
+        return Dense.multiplySymmetric(sigma, w);
     }
 }

@@ -181,7 +181,7 @@ final class MandateSweep {
         // Positive definiteness (one Cholesky factorisation) is checked on another thread while the walk runs;
         // the walk itself only ever factors the free block.
         java.util.concurrent.CompletableFuture<Factored> factoring = s.threads() > 1
-                ? java.util.concurrent.CompletableFuture.supplyAsync(() -> Factored.of(u))
+                ? java.util.concurrent.CompletableFuture.supplyAsync(() -> Factored.of(u, s))
                 : java.util.concurrent.CompletableFuture.completedFuture(null);
         return new MandateSweep(u, sigma, factoring, m, s, p, bookFixed);
     }
@@ -191,7 +191,7 @@ final class MandateSweep {
         if (factored == null) {
             try {
                 Factored done = factoring.join();
-                factored = done != null ? done : Factored.of(u);
+                factored = done != null ? done : Factored.of(u, settings);
             } catch (java.util.concurrent.CompletionException e) {
                 if (e.getCause() instanceof RuntimeException re) {
                     throw re;
