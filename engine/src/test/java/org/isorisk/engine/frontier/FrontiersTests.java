@@ -21,11 +21,25 @@ import org.isorisk.engine.model.RejectedTarget;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.engine.support.OjAlgoReference;
-import org.isorisk.engine.support.SampleFund;
+import java.nio.file.Path;
+import org.isorisk.engine.io.UniverseFiles;
+import org.isorisk.engine.io.UniverseLoader;
 import org.isorisk.engine.synthetic.FactorModels;
 import org.junit.jupiter.api.Test;
 
 class FrontiersTests {
+
+    /** The invented sample fund shipped in {@code sample-data/} (fictional, illustrative assumptions). */
+    private static AssetUniverse sampleFund() {
+        Path data = Path.of("..", "sample-data");
+        return UniverseLoader.load(UniverseFiles.of(data.resolve("expected_returns.csv"),
+                data.resolve("covariance.csv"))).universe();
+    }
+
+    /** Fully invested, long-only, every asset at most {@code max}. */
+    private static Mandate longOnly(int n, double max) {
+        return FactorModels.boxed(n, 0.0, max);
+    }
 
     private static Solution solve(AssetUniverse u, Mandate m, double t) {
         return Allocator.solve(new AllocationRequest(u, m, Objective.targetReturn(t), Method.CRITICAL_LINE, null));
@@ -52,18 +66,18 @@ class FrontiersTests {
 
     @Test
     void targetsOutsideTheAchievableRangeAreReportedNotDropped() {
-        AssetUniverse u = SampleFund.universe();
-        Mandate m = SampleFund.longOnly(0.35);
+        AssetUniverse u = sampleFund();
+        Mandate m = longOnly(12, 0.35);
         Frontier fr = Frontiers.mandate(u, m, Grid.parse("0.00:0.10:0.01"), null);
         assertEquals(11, fr.points().size() + fr.rejected().size(), "every target accounted for");
         List<Double> rejected = fr.rejected().stream().map(RejectedTarget::target).toList();
-        // Worked by hand from the invented assumptions: returns run from 2.71 % to 7.13 %.
+        // Worked by hand from the sample fund's expected returns: returns run from 2.95 % to 7.43 %.
         assertEquals(6, rejected.size(), rejected.toString());
         for (double t : new double[] {0.00, 0.01, 0.02, 0.08, 0.09, 0.10}) {
             assertTrue(rejected.stream().anyMatch(r -> Math.abs(r - t) < 1e-12), "rejected " + t);
         }
         assertTrue(fr.rejected().get(0).reason().startsWith("target return 0.00 % is below the lowest return the "
-                + "mandate allows, 2.71 %"), fr.rejected().get(0).reason());
+                + "mandate allows, 2.95 %"), fr.rejected().get(0).reason());
         for (Solution s : fr.points()) {
             assertTrue(s.certificate().worst() <= 1e-9);
         }
@@ -71,12 +85,14 @@ class FrontiersTests {
 
     @Test
     void theSampleFundLongOnlyAtMostThirtyFivePercentAgreesWithOjAlgo() {
-        // Invented sample fund; independent reference: ojAlgo's active-set QP (weights only).
-        AssetUniverse u = SampleFund.universe();
-        Mandate m = SampleFund.longOnly(0.35);
+        // The shipped (invented) sample fund; independent reference: ojAlgo's active-set QP (weights only).
+        AssetUniverse u = sampleFund();
+        Mandate m = longOnly(12, 0.35);
         Frontier fr = Frontiers.mandate(u, m, Grid.points(9), null);
-        assertEquals(0.35 * 0.08 + 0.35 * 0.068 + 0.30 * 0.065, fr.maxReturn(), Tolerances.TIGHT, "by hand");
-        assertEquals(0.35 * 0.020 + 0.35 * 0.030 + 0.30 * 0.032, fr.lowestReturn(), Tolerances.TIGHT, "by hand");
+        // By hand: Emerging Equity and Domestic Equity full, Foreign Developed Equity the rest; and at the bottom
+        // Cash and Government Bonds full, Inflation-Linked Bonds the rest.
+        assertEquals(0.35 * 0.083 + 0.35 * 0.071 + 0.30 * 0.068, fr.maxReturn(), Tolerances.TIGHT, "by hand");
+        assertEquals(0.35 * 0.025 + 0.35 * 0.031 + 0.30 * 0.033, fr.lowestReturn(), Tolerances.TIGHT, "by hand");
         for (Solution s : fr.points()) {
             double[] ref = OjAlgoReference.weights(u, m, s.expectedReturn());
             assertNotNull(ref);
@@ -92,10 +108,10 @@ class FrontiersTests {
         }
         assertEquals(0.35, mv.weight(0), Tolerances.TIGHT, "cash is the least risky asset and fills its cap");
         NoSolutionException e = assertThrows(NoSolutionException.class, () -> solve(u, m, 0.09));
-        assertEquals("target return 9.00 % is above the highest return the mandate allows, 7.13 % (Foreign Developed "
-                + "Equity at its upper bound 35.00 %, Emerging Equity at its upper bound 35.00 %, Domestic Equity "
-                + "30.00 %, every other asset at its lower bound); achievable returns run from 2.71 % to 7.13 %; fix: "
-                + "choose a target of at most 7.13 % or loosen the upper bounds", e.getMessage());
+        assertEquals("target return 9.00 % is above the highest return the mandate allows, 7.43 % (Domestic Equity "
+                + "at its upper bound 35.00 %, Emerging Equity at its upper bound 35.00 %, Foreign Developed Equity "
+                + "30.00 %, every other asset at its lower bound); achievable returns run from 2.95 % to 7.43 %; fix: "
+                + "choose a target of at most 7.43 % or loosen the upper bounds", e.getMessage());
         for (Corner c : fr.corners()) {
             assertTrue(c.description().length() > 20, c.description());
         }
