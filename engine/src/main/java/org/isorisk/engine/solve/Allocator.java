@@ -13,7 +13,9 @@ import org.isorisk.engine.model.MertonScalars;
 import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Relation;
+import org.isorisk.engine.model.ReturnRange;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.engine.model.SolverSettings;
 
 /**
  * The one front door for solving: picks the method (closed form when only equalities apply, the bounded
@@ -36,10 +38,24 @@ public final class Allocator {
      * @throws InputException      when the request cannot be solved as asked (e.g. closed form with bounds)
      */
     public static Solution solve(AllocationRequest r) {
+        return solve(r, null);
+    }
+
+    /**
+     * Solves one allocation problem, warm-starting the numerical method from a previous solution over the same
+     * assets (a neighbouring target of a frontier sweep, or the base case of a stress run). The closed form
+     * ignores the warm start.
+     *
+     * @param warmStart a previous solution, or null for a cold start
+     */
+    public static Solution solve(AllocationRequest r, Solution warmStart) {
         Mandate m = r.mandate();
         Method method = r.method();
         if (method == Method.AUTO) {
             method = m.equalitiesOnly() ? Method.CLOSED_FORM : Method.NUMERICAL;
+        }
+        if (method == Method.NUMERICAL) {
+            return session(r.universe(), m, r.settings()).solve(r.objective(), warmStart);
         }
         if (method == Method.CLOSED_FORM) {
             if (!m.equalitiesOnly()) {
@@ -51,6 +67,21 @@ public final class Allocator {
         }
         throw new NoSolutionException(NoSolutionException.Reason.NOT_CONVERGED,
                 "method " + method.label() + " is not available in this build", List.of());
+    }
+
+    /**
+     * A reusable numerical solver for one universe and mandate (frontier sweeps, stress runs): it checks the
+     * mandate and the convexity of Σ once and warm-starts each solve.
+     *
+     * @param settings null for {@link SolverSettings#defaults()}
+     */
+    public static SolverSession session(AssetUniverse u, Mandate m, SolverSettings settings) {
+        return new SolverSession(u, m, settings);
+    }
+
+    /** The lowest and highest expected return the mandate allows (linear programming), with the end portfolios. */
+    public static ReturnRange returnRange(AssetUniverse u, Mandate m) {
+        return new SolverSession(u, m, null).returnRange();
     }
 
     /** Closed-form solve on an already factored universe (for sweeps sharing one factorisation). */
