@@ -33,10 +33,22 @@ public final class Cholesky {
             int ri = i * n;
             for (int j = 0; j <= i; j++) {
                 int rj = j * n;
-                double s = l[ri + j];
-                for (int k = 0; k < j; k++) {
-                    s -= l[ri + k] * l[rj + k];
+                // four partial sums break the add-latency chain of the dot product (same result to round-off)
+                double s0 = 0;
+                double s1 = 0;
+                double s2 = 0;
+                double s3 = 0;
+                int k = 0;
+                for (; k + 3 < j; k += 4) {
+                    s0 += l[ri + k] * l[rj + k];
+                    s1 += l[ri + k + 1] * l[rj + k + 1];
+                    s2 += l[ri + k + 2] * l[rj + k + 2];
+                    s3 += l[ri + k + 3] * l[rj + k + 3];
                 }
+                for (; k < j; k++) {
+                    s0 += l[ri + k] * l[rj + k];
+                }
+                double s = l[ri + j] - ((s0 + s1) + (s2 + s3));
                 if (j < i) {
                     l[ri + j] = s / l[rj + j];
                 } else {

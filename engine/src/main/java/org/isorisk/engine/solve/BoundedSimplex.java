@@ -216,12 +216,17 @@ final class BoundedSimplex {
                     return Outcome.ITERATION_LIMIT;
                 }
                 boolean bland = degenerate >= BLAND_AFTER;
-                for (int j = 0; j < cols; j++) {
-                    double s = cost[j];
-                    for (int r = 0; r < m; r++) {
-                        s -= cost[basis[r]] * t[r][j];
+                // reduced costs d = c − c_B' T, row by row (contiguous, vectorisable)
+                System.arraycopy(cost, 0, d, 0, cols);
+                for (int r = 0; r < m; r++) {
+                    double cb = cost[basis[r]];
+                    if (cb == 0) {
+                        continue;
                     }
-                    d[j] = s;
+                    double[] tr = t[r];
+                    for (int j = 0; j < cols; j++) {
+                        d[j] -= cb * tr[j];
+                    }
                 }
                 int enter = -1;
                 double dir = 0;

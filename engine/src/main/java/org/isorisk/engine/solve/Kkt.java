@@ -36,12 +36,23 @@ public final class Kkt {
         int n = w.length;
         double[] grad = new double[n];
         for (int i = 0; i < n; i++) {
-            double s = 0;
+            // four partial sums: breaks the add-latency chain of one long dot product (same result to round-off)
+            double s0 = 0;
+            double s1 = 0;
+            double s2 = 0;
+            double s3 = 0;
             double[] r = sigma[i];
-            for (int j = 0; j < n; j++) {
-                s += r[j] * w[j];
+            int j = 0;
+            for (; j + 3 < n; j += 4) {
+                s0 += r[j] * w[j];
+                s1 += r[j + 1] * w[j + 1];
+                s2 += r[j + 2] * w[j + 2];
+                s3 += r[j + 3] * w[j + 3];
             }
-            grad[i] = 2 * s;
+            for (; j < n; j++) {
+                s0 += r[j] * w[j];
+            }
+            grad[i] = 2 * ((s0 + s1) + (s2 + s3));
         }
         double[] residual = grad.clone();
         double[] scale = new double[n];

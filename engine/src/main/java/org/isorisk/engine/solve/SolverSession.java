@@ -35,6 +35,8 @@ public final class SolverSession {
     private final List<String> assets;
     private final double[][] sigma;
     private final int n;
+    private final String[] lowerNames;
+    private final String[] upperNames;
     private boolean mandateChecked;
     private boolean convexChecked;
     private ReturnRange range;
@@ -50,6 +52,12 @@ public final class SolverSession {
         this.assets = universe.assets();
         this.sigma = symmetric(universe.covariance());
         this.n = universe.size();
+        this.lowerNames = new String[n];
+        this.upperNames = new String[n];
+        for (int i = 0; i < n; i++) {
+            lowerNames[i] = "lower:" + assets.get(i);
+            upperNames[i] = "upper:" + assets.get(i);
+        }
     }
 
     public AssetUniverse universe() {
@@ -196,7 +204,13 @@ public final class SolverSession {
 
     /** A vertex of the feasible set by phase 1 of the simplex method, with its tight constraints as working set. */
     private ActiveSetQp.Start coldStart(QpProblem p) {
-        BoundedSimplex.Result lp = BoundedSimplex.solve(p.a, p.rel, p.b, p.lo, p.hi, null, settings.maxIterations());
+        // The vertex that minimises Σ_i σ_ii w_i (each asset's own variance, a linear stand-in for w'Σw) starts the
+        // active-set method among the low-risk assets, close to where the minimum-variance solution lives.
+        double[] c = new double[n];
+        for (int i = 0; i < n; i++) {
+            c[i] = sigma[i][i];
+        }
+        BoundedSimplex.Result lp = BoundedSimplex.solve(p.a, p.rel, p.b, p.lo, p.hi, c, settings.maxIterations());
         if (lp.outcome() != BoundedSimplex.Outcome.OPTIMAL) {
             throw Feasibility.explainRows(p, settings.maxIterations());
         }
@@ -239,9 +253,9 @@ public final class SolverSession {
         }
         byte[] state = new byte[n];
         for (int i = 0; i < n; i++) {
-            if (Boolean.TRUE.equals(binding.get("lower:" + assets.get(i))) && Double.isFinite(p.lo[i])) {
+            if (Boolean.TRUE.equals(binding.get(lowerNames[i])) && Double.isFinite(p.lo[i])) {
                 state[i] = ActiveSetQp.LOWER;
-            } else if (Boolean.TRUE.equals(binding.get("upper:" + assets.get(i))) && Double.isFinite(p.hi[i])) {
+            } else if (Boolean.TRUE.equals(binding.get(upperNames[i])) && Double.isFinite(p.hi[i])) {
                 state[i] = ActiveSetQp.UPPER;
             }
         }
@@ -383,17 +397,16 @@ public final class SolverSession {
             }
         }
         for (int i = 0; i < n; i++) {
-            String a = assets.get(i);
             byte s = res.state()[i];
             if (Double.isFinite(lower[i])) {
                 boolean binding = s == ActiveSetQp.LOWER || (s == ActiveSetQp.FIXED && lower[i] == p.lo[i])
                         || Math.abs(w[i] - lower[i]) <= 1e-12 * Math.max(1, Math.abs(lower[i]));
-                mult.add(new Multiplier("lower:" + a, lowerPrices[i], perVol(lowerPrices[i], vol), binding));
+                mult.add(new Multiplier(lowerNames[i], lowerPrices[i], perVol(lowerPrices[i], vol), binding));
             }
             if (Double.isFinite(upper[i])) {
                 boolean binding = s == ActiveSetQp.UPPER || (s == ActiveSetQp.FIXED && upper[i] == p.hi[i])
                         || Math.abs(w[i] - upper[i]) <= 1e-12 * Math.max(1, Math.abs(upper[i]));
-                mult.add(new Multiplier("upper:" + a, upperPrices[i], perVol(upperPrices[i], vol), binding));
+                mult.add(new Multiplier(upperNames[i], upperPrices[i], perVol(upperPrices[i], vol), binding));
             }
         }
         Certificate cert = Kkt.certify(sigma, w, certRows, certPrices, lower, upper, lowerPrices, upperPrices,
