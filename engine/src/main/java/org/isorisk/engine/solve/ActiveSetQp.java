@@ -8,7 +8,7 @@ import org.isorisk.engine.model.Relation;
 
 /**
  * Primal active-set method for convex quadratic programs (Nocedal &amp; Wright, "Numerical Optimization",
- * 2nd ed. 2006, Algorithm 16.3), specialised to portfolio problems: minimise {@code w'Σw} subject to a few general
+ * 2nd ed. 2006, Algorithm 16.3; numbering from memory), specialised to portfolio problems: minimise {@code w'Σw} subject to a few general
  * rows and many simple bounds.
  *
  * <ul>

@@ -8,7 +8,7 @@ import org.isorisk.engine.model.Relation;
 
 /**
  * A small dense primal simplex method for bounded variables (Dantzig's bounded-variable simplex; see e.g.
- * Chvátal, "Linear Programming", 1983, ch. 8), two phases with one artificial variable per row:
+ * Chvátal, "Linear Programming", 1983, chapter on bounded variables, from memory), two phases with one artificial variable per row:
  * minimise {@code c'x} subject to {@code a_r'x (=|<=|>=) b_r} and {@code lo ≤ x ≤ hi} (infinite bounds allowed).
  *
  * <p>It serves three purposes: a feasible starting vertex for the active-set QP, the range of expected returns a

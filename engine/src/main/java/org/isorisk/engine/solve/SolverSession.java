@@ -211,6 +211,10 @@ public final class SolverSession {
             c[i] = sigma[i][i];
         }
         BoundedSimplex.Result lp = BoundedSimplex.solve(p.a, p.rel, p.b, p.lo, p.hi, c, settings.maxIterations());
+        if (lp.outcome() == BoundedSimplex.Outcome.UNBOUNDED || lp.outcome() == BoundedSimplex.Outcome.ITERATION_LIMIT) {
+            // unbounded stand-in (assets without bounds): any vertex of phase 1 will do
+            lp = BoundedSimplex.solve(p.a, p.rel, p.b, p.lo, p.hi, null, settings.maxIterations());
+        }
         if (lp.outcome() != BoundedSimplex.Outcome.OPTIMAL) {
             throw Feasibility.explainRows(p, settings.maxIterations());
         }
@@ -431,7 +435,7 @@ public final class SolverSession {
 
     /**
      * The bounded tangency portfolio by homogenisation (Cornuejols &amp; Tütüncü, "Optimization Methods in Finance",
-     * 2007, §8.2): with {@code y = κw}, {@code κ = 1'y/b > 0}, maximising the Sharpe ratio is minimising
+     * 2007, ch. 8; chapter from memory): with {@code y = κw}, {@code κ = 1'y/b > 0}, maximising the Sharpe ratio is minimising
      * {@code y'Σy} subject to {@code (μ − r_f 1)'y = 1} and every constraint scaled by κ. Then {@code w = y/κ}; its
      * multipliers and certificate are those of the minimum-variance problem at its own return, solved warm.
      */
