@@ -1,7 +1,6 @@
 package org.isorisk.engine.bench;
 
 import java.io.IOException;
-import java.io.OutputStream;
 import java.lang.management.ManagementFactory;
 import java.lang.management.MemoryPoolMXBean;
 import java.lang.management.MemoryType;
@@ -195,9 +194,7 @@ public final class QpBenchmark {
             Files.writeString(script, PY.replace("UPPER", Double.toString(m.upper(0))), StandardCharsets.UTF_8);
             Process p = new ProcessBuilder("/usr/bin/python3", script.toString(), dir.toString())
                     .redirectErrorStream(true).start();
-            try (OutputStream ignored = p.getOutputStream()) {
-                // no input
-            }
+            p.getOutputStream().close(); // no input
             String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
             p.waitFor();
             return new ArrayList<>(Arrays.asList(out.strip().split("\n")));
