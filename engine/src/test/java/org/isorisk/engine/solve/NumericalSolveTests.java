@@ -271,6 +271,32 @@ class NumericalSolveTests {
     }
 
     @Test
+    void aStressedCovarianceSolvesWarmFromTheBaseCase() {
+        // A stress run: a common shock added to every covariance (Σ + 0.004·11', still positive definite), the same
+        // mandate and target; warm equals cold.
+        int n = 40;
+        AssetUniverse u = GeneratedProblems.universe(n, 37);
+        Mandate m = GeneratedProblems.withGroups(n);
+        double target = Allocator.returnRange(u, m).min() + 0.02;
+        Solution base = solve(u, m, Objective.targetReturn(target));
+        double[][] s = u.covariance();
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                s[i][j] += 0.004;
+            }
+        }
+        AssetUniverse stressed = u.withAssumptions(u.expectedReturns(), s);
+        Solution warm = Allocator.solve(new AllocationRequest(stressed, m, Objective.targetReturn(target),
+                Method.NUMERICAL, null), base);
+        Solution cold = solve(stressed, m, Objective.targetReturn(target));
+        assertCertified(warm);
+        for (int i = 0; i < n; i++) {
+            assertEquals(cold.weight(i), warm.weight(i), Tolerances.GENERAL);
+        }
+        assertTrue(warm.variance() > base.variance());
+    }
+
+    @Test
     void fixedWeightsAreHeldAndPricedAsEqualities() {
         int n = 10;
         AssetUniverse u = GeneratedProblems.universe(n, 13);
