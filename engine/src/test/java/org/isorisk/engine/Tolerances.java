@@ -1,16 +1,16 @@
 package org.isorisk.engine;
 
-/** The tolerances every test uses, defined once (EJML style: general and tight). */
+/** The tolerances every test uses, defined once. */
 public final class Tolerances {
     private Tolerances() {
     }
 
-    /** Round-off level of a well-conditioned dense computation. */
+    /** Agreement expected from exact arithmetic done in double precision. */
     public static final double TIGHT = 1e-12;
-    /** What a closed-form (Cholesky) solve must reach. */
+    /** Closed-form solutions against each other or a reference formula. */
     public static final double CLOSED_FORM = 1e-10;
-    /** What an iterative or active-set method promises. */
+    /** Iterative or numerical methods, finite differences. */
     public static final double NUMERICAL = 1e-7;
-    /** General agreement between two independent exact methods. */
+    /** Everything else. */
     public static final double GENERAL = 1e-8;
 }
