@@ -400,38 +400,21 @@ public final class PolicyReader {
                     .fix("read the policy from a file so that the bounds file can be found beside it").build();
         }
         Path path = baseDir.resolve(name);
-        List<String> lines;
-        try {
-            lines = Files.readAllLines(path, StandardCharsets.UTF_8);
-        } catch (IOException e) {
+        if (!Files.isRegularFile(path)) {
             throw error(at, "bounds_file", "cannot read the bounds file '" + name + "'", name)
                     .fix("give a path relative to the policy file's folder").build();
         }
-        if (lines.isEmpty()) {
-            throw InputException.of("the bounds file is empty").file(name).fix("start with the header asset,min,max")
-                    .build();
-        }
-        List<String> header = splitCsv(stripBom(lines.get(0)));
-        List<String> expect3 = List.of("asset", "min", "max");
-        List<String> expect4 = List.of("asset", "min", "max", "group");
-        List<String> h = header.stream().map(s -> s.trim().toLowerCase(Locale.ROOT)).toList();
-        if (!h.equals(expect3) && !h.equals(expect4)) {
-            throw InputException.of("the bounds file's header is not asset,min,max[,group]").file(name).row(1)
-                    .value(lines.get(0)).fix("make the first line: asset,min,max,group (group optional)").build();
+        CsvTable table = Csv.read(path, "bounds");
+        List<String> h = table.header().stream().map(x -> x.trim().toLowerCase(Locale.ROOT)).toList();
+        if (!h.equals(List.of("asset", "min", "max")) && !h.equals(List.of("asset", "min", "max", "group"))) {
+            throw InputException.of("the bounds file's header is not asset,min,max[,group]").file(name)
+                    .row(table.headerRow()).value(String.join(",", table.header()))
+                    .fix("make the first line: asset,min,max,group (group optional)").build();
         }
         Set<Integer> seen = new HashSet<>();
-        for (int r = 1; r < lines.size(); r++) {
-            String line = lines.get(r);
-            if (line.isBlank()) {
-                continue;
-            }
-            int row = r + 1;
-            List<String> cells = splitCsv(line);
-            if (cells.size() != h.size()) {
-                throw InputException.of("row has " + cells.size() + " cells, the header has " + h.size()).file(name)
-                        .row(row).value(line).fix("give one cell per header column").build();
-            }
-            String a = cells.get(0).trim();
+        for (CsvRow r : table.rows()) {
+            int row = r.number();
+            String a = r.cell(0).trim();
             Integer i = index.get(a);
             if (i == null) {
                 throw InputException.of("unknown asset '" + a + "'").file(name).row(row).column("asset").value(a)
@@ -441,16 +424,16 @@ public final class PolicyReader {
                 throw InputException.of("asset '" + a + "' has bounds twice").file(name).row(row).column("asset")
                         .value(a).fix("give each asset's bounds once, in the table or under bounds.assets").build();
             }
-            double min = cell(cells.get(1), lo[i], name, row, "min");
-            double max = cell(cells.get(2), hi[i], name, row, "max");
+            double min = cell(r.cell(1), lo[i], name, row, "min");
+            double max = cell(r.cell(2), hi[i], name, row, "max");
             if (min > max) {
                 throw InputException.of("min is above max").file(name).row(row).column("min")
                         .value(decimal(min) + " > " + decimal(max)).fix("make min at most max").build();
             }
             lo[i] = min;
             hi[i] = max;
-            if (h.size() == 4 && !cells.get(3).isBlank()) {
-                String g = cells.get(3).trim();
+            if (h.size() == 4 && !r.cell(3).isBlank()) {
+                String g = r.cell(3).trim();
                 members.computeIfAbsent(g, x -> new ArrayList<>()).add(i);
                 memberLine.putIfAbsent(g, row);
             }
@@ -634,38 +617,5 @@ public final class PolicyReader {
     static String decimal(double v) {
         String s = new java.math.BigDecimal(Double.toString(v)).stripTrailingZeros().toPlainString();
         return s.contains(".") ? s : s + ".0";
-    }
-
-    private static String stripBom(String s) {
-        return !s.isEmpty() && s.charAt(0) == '\uFEFF' ? s.substring(1) : s;
-    }
-
-    /** Splits one CSV line (RFC 4180 quotes allowed). */
-    static List<String> splitCsv(String line) {
-        List<String> out = new ArrayList<>();
-        StringBuilder cur = new StringBuilder();
-        boolean quoted = false;
-        for (int i = 0; i < line.length(); i++) {
-            char c = line.charAt(i);
-            if (quoted) {
-                if (c == '"' && i + 1 < line.length() && line.charAt(i + 1) == '"') {
-                    cur.append('"');
-                    i++;
-                } else if (c == '"') {
-                    quoted = false;
-                } else {
-                    cur.append(c);
-                }
-            } else if (c == '"') {
-                quoted = true;
-            } else if (c == ',') {
-                out.add(cur.toString());
-                cur.setLength(0);
-            } else {
-                cur.append(c);
-            }
-        }
-        out.add(cur.toString());
-        return out;
     }
 }

@@ -48,9 +48,12 @@ final class ActiveSetQp {
      * @param iterations iterations taken
      * @param condition  estimated 2-norm condition number of the reduced Hessian {@code Σ_FF}
      * @param freeCount  size of the final free set
+     * @param dependent  constraints that hold with equality at the solution but are linear combinations of the
+     *                   working set (degenerate): index r for row r, {@code -1 - i} for a bound of variable i. When
+     *                   not empty, the multipliers are not unique; the ones returned are those of the working set.
      */
     record Result(double[] w, double[] nu, double[] lambda, byte[] state, boolean[] rowActive, int iterations,
-                  double condition, int freeCount) {
+                  double condition, int freeCount, int[] dependent) {
     }
 
     /**
@@ -483,7 +486,50 @@ final class ActiveSetQp {
             }
             lambda[i] = lam;
         }
-        return new Result(w.clone(), nuRows, lambda, st.clone(), rowAct.clone(), iterations, condition(), k);
+        return new Result(w.clone(), nuRows, lambda, st.clone(), rowAct.clone(), iterations, condition(), k,
+                dependentTight());
+    }
+
+    /** Constraints tight at w, outside the working set, whose free-set gradient lies in the working set's span. */
+    private int[] dependentTight() {
+        Qr qr = Qr.of(y, ma, k);
+        List<Integer> out = new java.util.ArrayList<>();
+        for (int r = 0; r < m; r++) {
+            if (rowAct[r] || Math.abs(rowVal[r] - p.b[r]) > 1e-10 * Math.max(1, Math.abs(p.b[r]))) {
+                continue;
+            }
+            double[] col = new double[Math.max(k, 1)];
+            double norm = 0;
+            for (int t = 0; t < k; t++) {
+                col[t] = p.a[r][free[t]];
+            }
+            forward(col);
+            for (int t = 0; t < k; t++) {
+                norm += col[t] * col[t];
+            }
+            if (qr.residualNorm(col) <= 1e-9 * Math.sqrt(norm)) {
+                out.add(r);
+            }
+        }
+        for (int t = 0; t < k; t++) {
+            int i = free[t];
+            boolean atLo = Double.isFinite(p.lo[i]) && Math.abs(w[i] - p.lo[i]) <= 1e-10 * Math.max(1, Math.abs(p.lo[i]));
+            boolean atHi = Double.isFinite(p.hi[i]) && Math.abs(w[i] - p.hi[i]) <= 1e-10 * Math.max(1, Math.abs(p.hi[i]));
+            if (!atLo && !atHi) {
+                continue;
+            }
+            double[] col = new double[k];
+            col[t] = 1;
+            forward(col);
+            double norm = 0;
+            for (double v : col) {
+                norm += v * v;
+            }
+            if (qr.residualNorm(col) <= 1e-9 * Math.sqrt(norm)) {
+                out.add(-1 - i);
+            }
+        }
+        return out.stream().mapToInt(Integer::intValue).toArray();
     }
 
     // ---- factor updates ------------------------------------------------------------------------------------

@@ -29,6 +29,9 @@ import org.isorisk.engine.model.SolverSettings;
  * previous solution's active set. Obtain one from {@link Allocator#session}. Not thread-safe.
  */
 public final class SolverSession {
+    /** Start of the note that says the multipliers are not unique (a degenerate solution). */
+    public static final String NOT_UNIQUE = "Multipliers not unique:";
+
     private final AssetUniverse universe;
     private final Mandate mandate;
     private final SolverSettings settings;
@@ -420,6 +423,18 @@ public final class SolverSession {
                 + "(%d iterations; %d assets away from their bounds).", res.iterations(), res.freeCount()));
         notes.add("The covariance matrix is positive definite, so the problem is strictly convex: the "
                 + "Karush-Kuhn-Tucker conditions are sufficient, and this minimum is global and unique.");
+        if (res.dependent().length > 0) {
+            List<String> names = new ArrayList<>();
+            for (int d : res.dependent()) {
+                names.add(d >= 0 ? p.names[d] : (Math.abs(w[-1 - d] - p.lo[-1 - d]) <= Math.abs(w[-1 - d] - p.hi[-1 - d])
+                        ? lowerNames[-1 - d] : upperNames[-1 - d]));
+            }
+            notes.add(String.format(Locale.ROOT, "%s %s at this portfolio but %s a linear combination of the other "
+                            + "binding constraints (the constraint qualification fails here), so the multipliers are "
+                            + "not unique: the values shown are one valid set, with %s priced at zero. The weights "
+                            + "are unique.", NOT_UNIQUE, String.join(", ", names) + (names.size() == 1 ? " binds" : " bind"),
+                    names.size() == 1 ? "is" : "are", names.size() == 1 ? "it" : "them"));
+        }
         if (!cert.passes()) {
             notes.add(String.format(Locale.ROOT, "WARNING: the certificate's largest residual %.3g exceeds the "
                     + "threshold %.1g; treat the result with care.", cert.worst(), cert.threshold()));

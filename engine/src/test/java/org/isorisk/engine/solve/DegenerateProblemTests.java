@@ -68,6 +68,21 @@ class DegenerateProblemTests {
     }
 
     @Test
+    void dependentBindingConstraintsAreReportedAsNonUniqueMultipliers() {
+        // The sample fund's minimum-variance portfolio under the sample policy: cash and the real assets sit at
+        // their bounds, so budget = Equity + Fixed Income + those bounds, and both group limits bind: the budget,
+        // the two group rows and the bounds are dependent. The weights are unique, the multipliers are not.
+        Mandate m = org.isorisk.engine.io.PolicyReader.read(org.isorisk.engine.SampleFund.DATA.resolve("policy.yaml"),
+                org.isorisk.engine.SampleFund.ASSETS).mandate();
+        Solution s = solve(org.isorisk.engine.SampleFund.universe(), m, Objective.minimumVariance());
+        assertTrue(s.certificate().worst() <= 1e-9, s.certificate().toString());
+        String note = s.notes().stream().filter(x -> x.startsWith(SolverSession.NOT_UNIQUE)).findFirst().orElseThrow();
+        assertTrue(note.contains("the constraint qualification fails here"), note);
+        assertTrue(s.multiplier("group:Equity:min").orElseThrow().binding());
+        assertTrue(s.multiplier("group:Fixed Income:max").orElseThrow().binding());
+    }
+
+    @Test
     void anAssetExactlyAtItsBoundWithAZeroMultiplierIsBindingAndFree() {
         // Put an upper bound exactly at the weight the asset takes without it: the bound holds with equality but
         // costs nothing, so its multiplier is zero and the solution is unchanged.
