@@ -21,16 +21,24 @@ final class CornerChanges {
     private CornerChanges() {
     }
 
-    /** What changes at one corner, with the corner portfolio to read limit values from. */
-    record Change(List<String> starts, List<String> stops, Solution portfolio) {
+    /**
+     * What changes at one corner (or between two samples), with the portfolios to read limit values from: the one
+     * where the starting constraints bind and the one where the stopping constraints still bound (both the corner
+     * portfolio at a corner).
+     */
+    record Change(List<String> starts, List<String> stops, Solution above, Solution below) {
+        Change(List<String> starts, List<String> stops, Solution portfolio) {
+            this(starts, stops, portfolio, portfolio);
+        }
+
         /** A short label, e.g. "Cash at cap 20 %" or "High Yield comes in". */
         String label(Corner fallback) {
             List<String> parts = new ArrayList<>();
             for (String c : starts) {
-                parts.add(phrase(c, true, portfolio));
+                parts.add(phrase(c, true, above));
             }
             for (String c : stops) {
-                parts.add(phrase(c, false, portfolio));
+                parts.add(phrase(c, false, below));
             }
             if (parts.isEmpty() && fallback != null && fallback.asset() != null) {
                 String verb = switch (fallback.change() == null ? "" : fallback.change()) {
@@ -89,6 +97,41 @@ final class CornerChanges {
             }
         }
         return b;
+    }
+
+    /** A change between two sampled portfolios, placed halfway between their targets. */
+    record Between(double m, Change change) {
+    }
+
+    /**
+     * Where the binding set changes between neighbouring sampled portfolios of a frontier without corners (the
+     * numerical frontier of a general mandate): one entry per pair of samples whose binding inequalities differ.
+     */
+    static List<Between> betweenSamples(List<FrontierPath.Step> steps) {
+        List<Between> out = new ArrayList<>();
+        for (int j = 1; j < steps.size(); j++) {
+            Solution a = steps.get(j - 1).portfolio();
+            Solution b = steps.get(j).portfolio();
+            Set<String> below = binding(a);
+            Set<String> above = binding(b);
+            List<String> starts = new ArrayList<>();
+            for (String x : above) {
+                if (!below.contains(x)) {
+                    starts.add(x);
+                }
+            }
+            List<String> stops = new ArrayList<>();
+            for (String x : below) {
+                if (!above.contains(x)) {
+                    stops.add(x);
+                }
+            }
+            if (!starts.isEmpty() || !stops.isEmpty()) {
+                out.add(new Between(0.5 * (a.expectedReturn() + b.expectedReturn()),
+                        new Change(starts, stops, b, a)));
+            }
+        }
+        return out;
     }
 
     /** One change per corner of {@code steps} (a path sorted by return), in order. */

@@ -44,7 +44,7 @@ final class FrontierChart {
     static Figure build(FrontierChartData d, ChartContext ctx, AssetColours colours, ChartSettings s) {
         AssetUniverse u = d.universe();
         Frontier f = d.frontier();
-        MertonScalars ms = d.unconstrained();
+        MertonScalars ms = usable(d.unconstrained());
         FrontierPath path = FrontierPath.of(f);
         boolean mandateCurve = path.size() > 0 && !path.closedFormOnly(f);
         if (path.size() == 1) {
@@ -169,9 +169,11 @@ final class FrontierChart {
             double[] xs = path.volatilities(k, path.size());
             double[] ys = path.returns(k, path.size());
             XYSeries m = line(chart, MANDATE, xs, ys, Palette.BLACK, Style.solid(2.6f));
-            m.setLabel(k > 0 ? "Mandate frontier, efficient (solid)" : "Mandate frontier (efficient only)");
+            String kind = f.corners().isEmpty() ? "Mandate frontier, sampled" : "Mandate frontier";
+            m.setLabel(kind + (k > 0 ? ", efficient (solid)" : " (efficient only)"));
             labels.curve(xs, ys);
-            List<FrontierPath.Step> corners = path.corners();
+            List<FrontierPath.Step> corners = path.steps.subList(k, path.size()).stream()
+                    .filter(st -> st.corner() != null).toList();
             if (!corners.isEmpty()) {
                 double[] cx = corners.stream().mapToDouble(FrontierPath.Step::sigma).toArray();
                 double[] cy = corners.stream().mapToDouble(FrontierPath.Step::m).toArray();
@@ -256,6 +258,14 @@ final class FrontierChart {
                     + String.join(", ", names) + "." : labels.omitted() + " labels left out to avoid overlaps.";
         };
         return new Figure(Figure.Kind.FRONTIER, chart, s, ctx, notices, List.of(omitted), true);
+    }
+
+    /**
+     * The closed-form scalars when they describe a frontier ({@code D > 0}); null when every expected return is
+     * equal (μ parallel to 1), where there is no unconstrained frontier to draw.
+     */
+    static MertonScalars usable(MertonScalars ms) {
+        return ms != null && ms.d() > 0 && ms.c() > 0 && Double.isFinite(ms.d()) ? ms : null;
     }
 
     private static String tangencyKind(Solution t) {

@@ -33,6 +33,13 @@ final class FrontierPath {
 
     static FrontierPath of(Frontier f) {
         List<Step> all = new ArrayList<>();
+        // The inefficient branch's corners, when the engine traced it, up to (not including) the minimum-variance
+        // portfolio, which is also the first corner of the efficient branch.
+        for (Corner c : f.inefficientCorners()) {
+            if (c.portfolio().expectedReturn() < f.minReturn() - 1e-12 * Math.max(1, Math.abs(f.minReturn()))) {
+                all.add(new Step(c.portfolio(), c));
+            }
+        }
         for (Corner c : f.corners()) {
             all.add(new Step(c.portfolio(), c));
         }

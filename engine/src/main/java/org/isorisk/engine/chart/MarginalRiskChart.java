@@ -27,9 +27,14 @@ final class MarginalRiskChart {
     static final String CORNERS = "corners";
     static final String TARGET = "target_return";
 
+    /** The return target's shadow price in volatility units; NaN when the portfolio has no return target. */
+    private static double volPerUnit(org.isorisk.engine.model.Solution p) {
+        return p.multiplier(TARGET).map(Multiplier::volatilityPerUnit).orElse(Double.NaN);
+    }
+
     static Figure build(Frontier f, ChartContext ctx, ChartSettings s) {
         FrontierPath path = FrontierPath.of(f);
-        MertonScalars ms = f.unconstrained();
+        MertonScalars ms = FrontierChart.usable(f.unconstrained());
         boolean mandate = path.size() > 0 && !path.closedFormOnly(f);
         int start = path.size() == 0 ? 0 : path.minimumVolatilityIndex();
         List<Double> mx = new ArrayList<>();
@@ -149,20 +154,46 @@ final class MarginalRiskChart {
                 + "in volatility units; the axis reads it as the volatility added by raising the target by %s "
                 + "(first order).", Style.percent(step, 2)));
         List<Supplier<String>> later = new ArrayList<>();
+        // Where the binding constraints change: at the corner portfolios, or, for a sampled frontier without
+        // corners, halfway between the two samples around each change.
+        List<double[]> marks = new ArrayList<>(); // {x, anchor}
+        List<String> texts = new ArrayList<>();
+        List<Boolean> labellableFlags = new ArrayList<>();
+        boolean sampledChanges = false;
+        List<FrontierPath.Step> efficient = path.size() == 0 ? List.of() : path.steps.subList(start, path.size());
         if (mandate && !cornerSteps.isEmpty()) {
-            List<FrontierPath.Step> efficient = path.steps.subList(start, path.size());
             List<CornerChanges.Change> changes = CornerChanges.of(efficient);
-            List<Guides.Guide> guides = new ArrayList<>();
-            List<String> texts = new ArrayList<>();
-            List<Integer> candidates = new ArrayList<>();
             for (int j = 0; j < cornerSteps.size(); j++) {
-                String label = changes.get(j).label(cornerSteps.get(j).corner());
+                FrontierPath.Step st = cornerSteps.get(j);
+                String label = changes.get(j).label(st.corner());
+                marks.add(new double[] {st.m(), volPerUnit(st.portfolio())});
                 texts.add(label);
-                if (j > 0 && j < cornerSteps.size() - 1 && !label.isEmpty()) {
+                labellableFlags.add(j > 0 && j < cornerSteps.size() - 1 && !label.isEmpty());
+            }
+        } else if (mandate) {
+            List<CornerChanges.Between> between = CornerChanges.betweenSamples(efficient);
+            for (CornerChanges.Between b : between) {
+                double anchor = 0.5 * (volPerUnit(b.change().above()) + volPerUnit(b.change().below()));
+                marks.add(new double[] {b.m(), Double.isNaN(anchor) ? volPerUnit(b.change().above()) : anchor});
+                String label = b.change().label(null);
+                texts.add(label);
+                labellableFlags.add(!label.isEmpty());
+            }
+            sampledChanges = !between.isEmpty();
+            if (sampledChanges) {
+                notices.add("Dashed lines: the binding constraints change between the two sampled targets around each "
+                        + "line (this mandate has groups or general limits, so its frontier is sampled, not traced "
+                        + "corner by corner).");
+            }
+        }
+        if (!marks.isEmpty()) {
+            List<Integer> candidates = new ArrayList<>();
+            for (int j = 0; j < marks.size(); j++) {
+                if (labellableFlags.get(j)) {
                     candidates.add(j);
                 }
             }
-            // More corners than the limit: label an evenly spread subset rather than the first ones.
+            // More than the limit: label an evenly spread subset rather than the first ones.
             java.util.Set<Integer> chosen = new java.util.HashSet<>();
             int limit = s.cornerLabelLimit();
             for (int q = 0; q < candidates.size(); q++) {
@@ -171,22 +202,20 @@ final class MarginalRiskChart {
                     chosen.add(candidates.get(q));
                 }
             }
-            int labellable = candidates.size();
-            int labelled = chosen.size();
-            for (int j = 0; j < cornerSteps.size(); j++) {
-                FrontierPath.Step st = cornerSteps.get(j);
-                double anchor = st.portfolio().multiplier(TARGET).map(Multiplier::volatilityPerUnit)
-                        .orElse(Double.NaN);
-                guides.add(new Guides.Guide(st.m(), chosen.contains(j) ? texts.get(j) : null, anchor));
+            List<Guides.Guide> guides = new ArrayList<>();
+            for (int j = 0; j < marks.size(); j++) {
+                guides.add(new Guides.Guide(marks.get(j)[0], chosen.contains(j) ? texts.get(j) : null,
+                        marks.get(j)[1]));
             }
             Guides g = new Guides(guides, Palette.alpha(Palette.BLACK, 0.35));
             chart.addAnnotation(g);
-            int limited = labellable - labelled;
-            int total = labellable;
+            int limited = candidates.size() - chosen.size();
+            int total = candidates.size();
+            String what = sampledChanges ? "change labels" : "corner labels";
             later.add(() -> {
                 int dropped = g.omitted() + limited;
-                return dropped > 0 ? String.format(Locale.ROOT, "%d of %d corner labels left out so that the rest stay "
-                        + "legible; the frontier table lists every corner.", dropped, total) : null;
+                return dropped > 0 ? String.format(Locale.ROOT, "%d of %d %s left out so that the rest stay legible.",
+                        dropped, total, what) : null;
             });
         }
         return new Figure(Figure.Kind.MARGINAL_RISK, chart, s, ctx, notices, later, true);

@@ -50,7 +50,7 @@ final class StressChart {
                             + "branch").fix("compute more frontier points for this scenario").build();
                 }
                 c = new double[][] {path.volatilities(k, path.size()), path.returns(k, path.size())};
-            } else if (path.size() == 0 && nf.frontier().unconstrained() != null
+            } else if (path.size() == 0 && FrontierChart.usable(nf.frontier().unconstrained()) != null
                     && Double.isFinite(nf.frontier().maxReturn())) {
                 MertonScalars ms = nf.frontier().unconstrained();
                 c = FrontierChart.hyperbola(ms, ms.minimumVarianceReturn(), nf.frontier().maxReturn());

@@ -204,15 +204,27 @@ final class WeightsChart {
                     grouping.other().size()));
         }
         List<Guides.Guide> guides = new ArrayList<>();
+        boolean anyCorner = false;
         for (FrontierPath.Step st : steps) {
+            anyCorner |= st.corner() != null;
             if (st.corner() != null && st != steps.get(0) && st != steps.get(k - 1)) {
                 guides.add(new Guides.Guide(st.m(), null));
             }
         }
         if (!guides.isEmpty()) {
-            chart.addAnnotation(new Guides(guides, Palette.alpha(Palette.BLACK, 0.4)));
             notices.add(0, "Dashed verticals: corner portfolios, where an asset reaches or leaves a limit; between "
                     + "them the weights change in straight lines.");
+        } else if (!anyCorner) {
+            for (CornerChanges.Between b : CornerChanges.betweenSamples(steps)) {
+                guides.add(new Guides.Guide(b.m(), null));
+            }
+            if (!guides.isEmpty()) {
+                notices.add(0, "Dashed verticals: the binding constraints change between the two sampled targets "
+                        + "around each line; between samples the weights are drawn straight.");
+            }
+        }
+        if (!guides.isEmpty()) {
+            chart.addAnnotation(new Guides(guides, Palette.alpha(Palette.BLACK, 0.4)));
         }
         chart.addAnnotation(bandLabels); // after the guides, so that names sit on top
         return new Figure(Figure.Kind.WEIGHTS, chart, s, ctx, notices, List.of());

@@ -14,7 +14,10 @@ import org.isorisk.engine.model.SolverSettings;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.engine.solve.Factored;
 
-/** The one front door for frontiers: the exact mandate frontier and the unconstrained closed-form frontier. */
+/**
+ * The one front door for frontiers: the exact mandate frontier, the unconstrained closed-form frontier, and the
+ * frontier of a general mandate (groups, general constraints) sampled by the numerical QP; {@link #of} picks.
+ */
 public final class Frontiers {
     private Frontiers() {
     }
@@ -84,5 +87,62 @@ public final class Frontiers {
         }
         return new Frontier(List.of(), points, ms, low, Double.POSITIVE_INFINITY, List.of(), Double.NEGATIVE_INFINITY,
                 rejected);
+    }
+
+    /**
+     * The frontier of any mandate, by the most exact method that applies: the closed form when only the budget
+     * applies ({@link #unconstrained}), the critical line method for bounds and fixed weights ({@link #mandate},
+     * with corners), the numerical QP at each target of the grid otherwise ({@link #sampled}, no corners).
+     */
+    public static Frontier of(AssetUniverse universe, Mandate mandate, Grid grid, SolverSettings settings) {
+        if (mandate.equalitiesOnly() && mandate.fixed().isEmpty() && mandate.constraints().isEmpty()) {
+            return unconstrained(universe, mandate.budget(), grid, settings);
+        }
+        if (Allocator.criticalLineApplies(mandate)) {
+            return mandate(universe, mandate, grid, settings);
+        }
+        return sampled(universe, mandate, grid, settings);
+    }
+
+    /**
+     * The frontier of a general mandate (bounds, groups, general linear constraints) sampled by the numerical QP:
+     * the minimum-variance portfolio, then the minimum-variance portfolio at each target of the grid from there to
+     * the highest return the mandate allows, each solve warm-started from the previous one. There are no corner
+     * portfolios (the critical line method covers bounds and fixed weights only); between two samples the binding
+     * set may change. Targets outside the achievable range, or that fail, are listed in {@link Frontier#rejected()}.
+     *
+     * @param universe assets and assumptions (not modified)
+     * @param mandate  the mandate
+     * @param grid     which targets to sample; {@link Grid#points(int)} spaces them from the minimum-variance
+     *                 return to the highest return the mandate allows
+     * @param settings tolerances and limits; null for the defaults
+     * @throws NoSolutionException when the mandate admits no portfolio
+     */
+    public static Frontier sampled(AssetUniverse universe, Mandate mandate, Grid grid, SolverSettings settings) {
+        org.isorisk.engine.solve.SolverSession session = Allocator.session(universe, mandate, settings);
+        org.isorisk.engine.model.ReturnRange range = session.returnRange();
+        Solution mv = session.solve(Objective.minimumVariance());
+        double low = mv.expectedReturn();
+        Grid g = grid == null ? Grid.none() : grid;
+        double[] targets = g.targets(low, range.max()).clone();
+        java.util.Arrays.sort(targets);
+        List<Solution> points = new ArrayList<>();
+        points.add(mv);
+        List<RejectedTarget> rejected = new ArrayList<>();
+        Solution warm = mv;
+        for (double t : targets) {
+            if (Math.abs(t - low) <= 1e-12 * Math.max(1, Math.abs(low))) {
+                continue; // the minimum-variance portfolio is already the first point
+            }
+            try {
+                Solution s = session.solve(Objective.targetReturn(t), warm);
+                points.add(s);
+                warm = s;
+            } catch (NoSolutionException e) {
+                rejected.add(new RejectedTarget(t, e.getMessage()));
+            }
+        }
+        MertonScalars ms = Allocator.merton(universe, mandate.budget());
+        return new Frontier(List.of(), points, ms, low, range.max(), List.of(), range.min(), rejected);
     }
 }
