@@ -51,24 +51,30 @@ final class BandLabels extends Annotation {
             TextLayout tl = new TextLayout(b.name(), font, g.getFontRenderContext());
             double w = tl.getAdvance() + 6;
             double h = tl.getAscent() + tl.getDescent() + 2;
-            // Try the screen x positions in steps of 4 pixels and keep the one where the band, over the label's
-            // whole width, is thickest.
+            // Try screen x positions 4 pixels apart; at each, the label's box must fit between the lowest point of
+            // the band's upper edge and the highest point of its lower edge over the label's whole width (a sloping
+            // band leaves less room for horizontal text than its vertical thickness). Keep the roomiest place.
             double bestX = Double.NaN;
-            double bestMin = 0;
+            double bestRoom = 0;
+            double bestCy = 0;
             for (double x = left + w / 2; x <= right - w / 2; x += 4) {
-                double min = Double.POSITIVE_INFINITY;
+                double maxTop = Double.NEGATIVE_INFINITY;
+                double minBottom = Double.POSITIVE_INFINITY;
                 for (double dx = -w / 2; dx <= w / 2; dx += 2) {
-                    min = Math.min(min, thickness(b, x + dx));
+                    maxTop = Math.max(maxTop, edge(b, x + dx, true));
+                    minBottom = Math.min(minBottom, edge(b, x + dx, false));
                 }
-                if (min > bestMin) {
-                    bestMin = min;
+                double room = minBottom - maxTop;
+                if (room > bestRoom) {
+                    bestRoom = room;
                     bestX = x;
+                    bestCy = 0.5 * (maxTop + minBottom);
                 }
             }
-            if (Double.isNaN(bestX) || bestMin < h + 2) {
+            if (Double.isNaN(bestX) || bestRoom < h + 2) {
                 continue;
             }
-            double cy = 0.5 * (edge(b, bestX, true) + edge(b, bestX, false));
+            double cy = bestCy;
             double tx = bestX - tl.getAdvance() / 2;
             double ty = cy + (tl.getAscent() - tl.getDescent()) / 2;
             Shape outline = tl.getOutline(AffineTransform.getTranslateInstance(tx, ty));
@@ -82,11 +88,6 @@ final class BandLabels extends Annotation {
         }
         bounds = new Rectangle2D.Double(left, getYAxisScreenValueForMin(), right - left,
                 getYAxisScreenValueForMax() - getYAxisScreenValueForMin());
-    }
-
-    /** Screen thickness of the band at screen x (edges interpolated linearly, as the polygon is drawn). */
-    private double thickness(Band b, double sx) {
-        return edge(b, sx, false) - edge(b, sx, true);
     }
 
     /** Screen y of the band's upper ({@code top}) or lower edge at screen x; NaN outside the data. */

@@ -290,6 +290,12 @@ final class FrontierChart {
         s.setMarker(SeriesMarkers.NONE);
         s.setLineColor(colour);
         s.setLineStyle(stroke);
+        // XChart strokes a polyline segment by segment, restarting the dash pattern each time, so a densely
+        // sampled dashed curve would look solid; a smooth series is one path, dashed continuously (with segments
+        // of a pixel or two the smoothing does not move the curve visibly).
+        if (stroke.getDashArray() != null && x.length > 2) {
+            s.setSmooth(true);
+        }
         return s;
     }
 

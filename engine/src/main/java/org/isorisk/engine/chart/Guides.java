@@ -74,6 +74,7 @@ final class Guides extends Annotation {
             }
             double x = chart.getScreenXFromChart(gd.x());
             double sy = Double.isNaN(gd.anchor()) ? bottom : chart.getScreenYFromChart(gd.anchor());
+            sy = Math.max(top, Math.min(bottom, sy)); // a curve point off the chart (a capped axis) counts as its edge
             double above = sy - top - 10;
             double below = bottom - sy - 10;
             boolean up = above >= below;

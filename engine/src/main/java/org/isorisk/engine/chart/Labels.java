@@ -108,7 +108,8 @@ final class Labels extends Annotation {
             Rectangle2D own = new Rectangle2D.Double(sx - it.radius(), sy - it.radius(), 2 * it.radius(),
                     2 * it.radius());
             outer:
-            for (double ring : new double[] {1.0, 2.2, 3.6, 5.2}) {
+            for (double ring : it.priority() >= 50 ? new double[] {1.0, 2.2, 3.6, 5.2, 7.0, 9.0}
+                    : new double[] {1.0, 2.2, 3.6, 5.2}) {
                 double d = (it.radius() + 2) * ring;
                 for (int a = 0; a < 16; a++) {
                     // start at east and alternate around the circle: E, W, NE, SE, NW, SW, ...

@@ -132,6 +132,9 @@ final class MarginalRiskChart {
             }
         }
         List<String> notices = new ArrayList<>();
+        notices.add(String.format(Locale.ROOT, "Curves: \u2202\u03c3*/\u2202m, the return target's shadow price in "
+                + "volatility units, read on the axis as the volatility added by %s more target (first order).",
+                Style.percent(step, 2)));
         // A steep rise at the maximum-return end would flatten everything else: then the axis stops at twice the
         // 85th percentile of the mandate curve and the chart says how high the curve goes.
         if (my.size() >= 5) {
@@ -150,9 +153,6 @@ final class MarginalRiskChart {
         chart.getStyler().setYAxisMin(yMin < 0 ? yMin - 0.05 * span : 0.0);
         chart.getStyler().setYAxisMax(yMax + 0.08 * span);
 
-        notices.add(String.format(Locale.ROOT, "The curves are \u2202\u03c3*/\u2202m, the return target's shadow price "
-                + "in volatility units; the axis reads it as the volatility added by raising the target by %s "
-                + "(first order).", Style.percent(step, 2)));
         List<Supplier<String>> later = new ArrayList<>();
         // Where the binding constraints change: at the corner portfolios, or, for a sampled frontier without
         // corners, halfway between the two samples around each change.
@@ -181,9 +181,8 @@ final class MarginalRiskChart {
             }
             sampledChanges = !between.isEmpty();
             if (sampledChanges) {
-                notices.add("Dashed lines: the binding constraints change between the two sampled targets around each "
-                        + "line (this mandate has groups or general limits, so its frontier is sampled, not traced "
-                        + "corner by corner).");
+                notices.add("Dashed lines: the binding constraints change between the two sampled targets around "
+                        + "the line (with groups or general limits the frontier is sampled, not traced corner by corner).");
             }
         }
         if (!marks.isEmpty()) {

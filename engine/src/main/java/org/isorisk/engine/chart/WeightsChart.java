@@ -152,7 +152,7 @@ final class WeightsChart {
             for (int j = 0; j < k; j++) {
                 // A layer that changes sign along the frontier is split at 0: its long part stacks up, its short
                 // part down. The polygon for it covers both.
-                if (w[j] >= 0) {
+                if (w[j] >= -SHORT_NOISE) { // rounding noise of a weight held at 0 stacks with the longs
                     lo[j] = posBase[j];
                     hi[j] = posBase[j] + w[j];
                     posBase[j] = hi[j];

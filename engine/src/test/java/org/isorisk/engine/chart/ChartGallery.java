@@ -7,6 +7,8 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.isorisk.engine.frontier.Frontiers;
+import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Frontier;
@@ -30,31 +32,27 @@ public final class ChartGallery {
         ChartContext ctx = ChartFixtures.context();
 
         AssetUniverse u = ChartFixtures.sampleFund();
-        double[][] b = ChartFixtures.sampleBounds(u);
-        Frontier f = ChartFixtures.boundedFrontier(u, b[0], b[1], 60, true);
-        write(out, "sample", u, f, ctx, s, ChartFixtures.sampleCurrent());
+        Frontier bounds = Frontiers.mandate(u, ChartFixtures.sampleBounds(), Grid.points(60), null);
+        write(out, "sample", u, ChartFixtures.sampleBounds(), bounds, ctx, s, ChartFixtures.sampleCurrent());
+        Frontier policy = Frontiers.of(u, ChartFixtures.samplePolicy(), Grid.points(60), null);
+        write(out, "policy", u, ChartFixtures.samplePolicy(), policy, ctx, s, ChartFixtures.sampleCurrent());
         if (args.length > 1 && args[1].equals("sample")) {
             return;
         }
-
         AssetUniverse big = ChartFixtures.large(200, 7);
-        double[] lo = new double[200];
-        double[] hi = new double[200];
-        Arrays.fill(hi, 0.05);
-        Frontier fb = ChartFixtures.boundedFrontier(big, lo, hi, 40, false);
+        Frontier fb = ChartFixtures.boxedFrontier(big, 0.05, 60);
         double[] cur = new double[200];
         Arrays.fill(cur, 1.0 / 200);
-        write(out, "n200", big, fb, ctx, s, cur);
+        write(out, "n200", big, org.isorisk.engine.synthetic.FactorModels.boxed(200, 0.0, 0.05), fb, ctx, s, cur);
     }
 
-    static void write(Path out, String tag, AssetUniverse u, Frontier f, ChartContext ctx, ChartSettings s,
-                      double[] current) throws IOException {
+    static void write(Path out, String tag, AssetUniverse u, Mandate mandate, Frontier f, ChartContext ctx,
+                      ChartSettings s, double[] current) throws IOException {
         AssetColours colours = AssetColours.of(u.assets());
         double target = f.minReturn() + 0.55 * (f.maxReturn() - f.minReturn());
         Solution proposed = nearest(f, target);
-        Mandate free = Mandate.fullyInvested(u.size());
-        Solution tangency = Allocator.solve(AllocationRequest.of(u, free, Objective.tangency(0.02)));
-        FrontierChartData d = FrontierChartData.of(u, f).withTangency(0.02, tangency)
+        Solution tangency = Allocator.solve(AllocationRequest.of(u, mandate, Objective.tangency(0.024)));
+        FrontierChartData d = FrontierChartData.of(u, f).withTangency(0.024, tangency)
                 .withCurrent(ChartFixtures.point("Current", u, current))
                 .withProposed(PortfolioPoint.of("Proposed", proposed));
         List<Figure> figs = new ArrayList<>();
@@ -64,10 +62,11 @@ public final class ChartGallery {
         figs.add(Charts.riskContributions(ChartFixtures.shares("Current", u, current),
                 ChartFixtures.shares("Proposed", u, proposed.weights()), ctx, colours, s));
         AssetUniverse shocked = u.withAssumptions(scale(u.expectedReturns(), 0.8), scaleCov(u.covariance(), 1.3));
-        double[][] bb = bounds(f, u.size());
         figs.add(Charts.stressOverlay(List.of(new NamedFrontier("Base", f),
-                new NamedFrontier("Higher volatility", ChartFixtures.boundedFrontier(shocked, bb[0], bb[1], 30,
-                        false))), ctx, s));
+                new NamedFrontier("Returns 20 % lower, variances 30 % higher", u.size() == 12 && f.corners().isEmpty()
+                        ? Frontiers.of(shocked, ChartFixtures.samplePolicy(), Grid.points(30), null)
+                        : u.size() == 12 ? Frontiers.mandate(shocked, ChartFixtures.sampleBounds(), Grid.points(30), null)
+                        : ChartFixtures.boxedFrontier(shocked, 0.05, 30))), ctx, s));
         for (Figure fig : figs) {
             for (ChartFormat fmt : ChartFormat.values()) {
                 Path p = out.resolve(tag + "-" + fig.kind().label() + "." + fmt.extension());
@@ -87,17 +86,6 @@ public final class ChartGallery {
             }
         }
         return best;
-    }
-
-    private static double[][] bounds(Frontier f, int n) {
-        double[] lo = new double[n];
-        double[] hi = new double[n];
-        Solution s = f.points().get(0);
-        if (n == 12) {
-            return ChartFixtures.sampleBounds(ChartFixtures.sampleFund());
-        }
-        Arrays.fill(hi, 0.05);
-        return new double[][] {lo, hi};
     }
 
     private static double[] scale(double[] a, double k) {
