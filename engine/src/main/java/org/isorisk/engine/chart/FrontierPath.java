@@ -43,18 +43,35 @@ final class FrontierPath {
         for (Corner c : f.corners()) {
             all.add(new Step(c.portfolio(), c));
         }
+        // A sampled point that repeats a corner (same return up to rounding) is dropped; corners are all kept (the
+        // engine may list one portfolio twice at a kink, with the multipliers of each side).
+        List<Step> points = new ArrayList<>();
         for (Solution s : f.points()) {
-            all.add(new Step(s, null));
-        }
-        // Corners first at equal returns; corners are all kept (the engine may list one portfolio twice at a kink,
-        // with the multipliers of each side), a sampled point that repeats a corner is dropped.
-        all.sort(Comparator.comparingDouble(Step::m).thenComparing(s -> s.corner() == null));
-        List<Step> out = new ArrayList<>();
-        for (Step s : all) {
-            if (s.corner() == null && !out.isEmpty() && same(out.get(out.size() - 1).m(), s.m())) {
-                continue;
+            boolean repeats = false;
+            for (Step c : all) {
+                repeats |= same(c.m(), s.expectedReturn());
             }
-            out.add(s);
+            for (Step p : points) {
+                repeats |= same(p.m(), s.expectedReturn());
+            }
+            if (!repeats) {
+                points.add(new Step(s, null));
+            }
+        }
+        // Merge the points into the corners' own order (increasing in return; at a kink the engine's order of the
+        // two corners is kept, since each carries the multipliers of its side): a point goes after every corner
+        // whose return does not exceed its own.
+        points.sort(Comparator.comparingDouble(Step::m));
+        List<Step> out = new ArrayList<>();
+        int p = 0;
+        for (Step c : all) {
+            while (p < points.size() && points.get(p).m() < c.m()) {
+                out.add(points.get(p++));
+            }
+            out.add(c);
+        }
+        while (p < points.size()) {
+            out.add(points.get(p++));
         }
         return new FrontierPath(List.copyOf(out));
     }

@@ -43,22 +43,30 @@ class FrontierChartTests {
         return Charts.frontier(d, ChartFixtures.context(), AssetColours.of(d.universe().assets()), S);
     }
 
-    /** The frontier's portfolios as the chart must draw them: corners and points by return, duplicates once. */
+    /**
+     * The frontier's portfolios as the chart must draw them: the corners in the frontier's own order, each sampled
+     * point that does not repeat a corner placed after the corners with returns not above its own.
+     */
     private static List<Solution> expectedPath(Frontier f) {
-        List<Solution> all = new ArrayList<>();
-        for (Corner c : f.corners()) {
-            all.add(c.portfolio());
-        }
+        List<Solution> out = new ArrayList<>();
         List<Solution> pts = new ArrayList<>();
         for (Solution p : f.points()) {
-            boolean dup = all.stream().anyMatch(c -> Math.abs(c.expectedReturn() - p.expectedReturn()) <= 1e-12);
+            boolean dup = f.corners().stream().anyMatch(c -> Math.abs(c.portfolio().expectedReturn()
+                    - p.expectedReturn()) <= 1e-12 * Math.max(1, Math.abs(p.expectedReturn())));
             if (!dup) {
                 pts.add(p);
             }
         }
-        all.addAll(pts);
-        all.sort(Comparator.comparingDouble(Solution::expectedReturn));
-        return all;
+        pts.sort(Comparator.comparingDouble(Solution::expectedReturn));
+        int p = 0;
+        for (Corner c : f.corners()) {
+            while (p < pts.size() && pts.get(p).expectedReturn() < c.portfolio().expectedReturn()) {
+                out.add(pts.get(p++));
+            }
+            out.add(c.portfolio());
+        }
+        out.addAll(pts.subList(p, pts.size()));
+        return out;
     }
 
     @Test
@@ -147,8 +155,11 @@ class FrontierChartTests {
     @Test
     void aFarAwayUnconstrainedTangencyIsNamedInTheFootnoteInsteadOfSqueezingTheChart() {
         AssetUniverse u = ChartFixtures.sampleFund();
-        Solution t = Allocator.solve(AllocationRequest.of(u, Mandate.fullyInvested(u.size()), Objective.tangency(0.02)));
-        Figure fig = sampleChart(FrontierChartData.of(u, ChartFixtures.sampleFrontier()).withTangency(0.02, t));
+        // A risk-free rate just below the minimum-variance return puts the unconstrained tangency far out on the
+        // hyperbola: its return (B − A r)/(A − C r) grows without bound as r approaches A/C (Merton 1972).
+        double rf = ChartFixtures.sampleFrontier().unconstrained().minimumVarianceReturn() - 1e-6;
+        Solution t = Allocator.solve(AllocationRequest.of(u, Mandate.fullyInvested(u.size()), Objective.tangency(rf)));
+        Figure fig = sampleChart(FrontierChartData.of(u, ChartFixtures.sampleFrontier()).withTangency(rf, t));
         assertNull(((XYChart) fig.chart()).getSeries(FrontierChart.TANGENCY));
         assertTrue(fig.notices().stream().anyMatch(n -> n.contains("tangency portfolio (unconstrained) lies outside")),
                 fig.notices().toString());
