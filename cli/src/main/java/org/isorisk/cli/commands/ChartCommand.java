@@ -23,7 +23,8 @@ import picocli.CommandLine.Spec;
         description = {"Draw one committee chart into a file; the format comes from the file's extension (.png at "
                 + "twice the chart's size for print, .svg, .pdf). Every chart carries the caution, the as-of date of "
                 + "the assumptions and a short hash of the inputs in its footnote."},
-        subcommands = {RiskContributionsChartCommand.class})
+        subcommands = {FrontierChartCommand.class, WeightsChartCommand.class, MarginalRiskChartCommand.class,
+            RiskContributionsChartCommand.class})
 public final class ChartCommand implements Runnable {
 
     @Spec

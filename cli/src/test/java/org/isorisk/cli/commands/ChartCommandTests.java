@@ -81,6 +81,55 @@ class ChartCommandTests {
     void chartWithoutAKindNamesTheKinds() {
         Run r = Run.of("chart");
         assertEquals(2, r.code());
-        assertTrue(r.err().startsWith("isorisk: error: name a chart: risk-contributions"), r.err());
+        assertEquals("isorisk: error: name a chart: frontier, weights, marginal-risk, risk-contributions (see 'isorisk "
+                + "chart --help')\n", r.err());
+    }
+
+    @Test
+    void theFrontierUnderThePolicyWithTangencyCurrentAndProposalIsDrawn() throws IOException {
+        Path policy = Files.copy(Run.SAMPLE.resolve("policy.yaml"), dir.resolve("policy.yaml"));
+        Path pdf = dir.resolve("frontier.pdf");
+        Run r = Run.of("chart", "frontier", "--expected-returns", mu, "--covariance", cov, "--policy", policy.toString(),
+                "--current", holdings, "--target-return", "0.05", "--risk-free", "0.024", "--points", "20", "--out",
+                pdf.toString());
+        assertEquals(0, r.code(), r.toString());
+        assertTrue(r.out().startsWith("Wrote the frontier chart to " + pdf + " (PDF, 800 x 600 points).\n"), r.out());
+        assertEquals("%PDF-", new String(Files.readAllBytes(pdf), 0, 5, StandardCharsets.US_ASCII));
+    }
+
+    @Test
+    void weightsUnderBoundsOnlyHaveCornerGuidesAndUnderGroupsSampledChanges() throws IOException {
+        Path bounds = Path.of(Run.file(dir, "bounds.yaml", "bounds:\n  default: {min: 0.0, max: 0.3}\n"));
+        Run r = Run.of("chart", "weights", "--expected-returns", mu, "--covariance", cov, "--policy", bounds.toString(),
+                "--out", dir.resolve("w.png").toString());
+        assertEquals(0, r.code(), r.toString());
+        assertTrue(r.out().contains("Dashed verticals: corner portfolios"), r.out());
+        Path policy = Files.copy(Run.SAMPLE.resolve("policy.yaml"), dir.resolve("policy.yaml"));
+        Run g = Run.of("chart", "weights", "--expected-returns", mu, "--covariance", cov, "--policy", policy.toString(),
+                "--points", "25", "--out", dir.resolve("w2.png").toString());
+        assertEquals(0, g.code(), g.toString());
+        assertTrue(g.out().replaceAll("\\s+", " ").contains("the binding constraints change between the two sampled "
+                + "targets"), g.out());
+    }
+
+    @Test
+    void marginalRiskWithoutAPolicyIsTheClosedFormCurveAlone() {
+        Run r = Run.of("chart", "marginal-risk", "--expected-returns", mu, "--covariance", cov, "--out",
+                dir.resolve("m.svg").toString());
+        assertEquals(0, r.code(), r.toString());
+        assertTrue(r.out().startsWith("Wrote the marginal-risk chart to "), r.out());
+    }
+
+    @Test
+    void tooFewPointsAndMissingReturnsAreInputErrors() {
+        Run r = Run.of("chart", "frontier", "--expected-returns", mu, "--covariance", cov, "--points", "1", "--out",
+                dir.resolve("f.png").toString());
+        assertEquals(2, r.code());
+        assertEquals("isorisk: error: --points must be at least 2 for a frontier chart (value '1'); fix: give --points "
+                + "2 or more (default 60)\n", r.err());
+        Run n = Run.of("chart", "weights", "--covariance", cov, "--out", dir.resolve("f.png").toString());
+        assertEquals(2, n.code());
+        assertTrue(n.err().startsWith("isorisk: error: 'isorisk chart weights' needs the expected returns"), n.err());
+        assertFalse(Files.exists(dir.resolve("f.png")));
     }
 }
