@@ -50,7 +50,7 @@ public final class DemoCommand extends BaseCommand {
 
     /** The sample files, bundled in the jar from the repository's {@code sample-data/} folder. */
     public static final List<String> SAMPLE_FILES = List.of("expected_returns.csv", "covariance.csv",
-            "volatilities.csv", "correlation.csv", "holdings.csv", "benchmark.csv", "README.md");
+            "volatilities.csv", "correlation.csv", "holdings.csv", "benchmark.csv", "policy.yaml", "README.md");
 
     private static final List<String> REQUIRED = List.of("expected_returns.csv", "covariance.csv", "holdings.csv");
 
@@ -110,8 +110,11 @@ public final class DemoCommand extends BaseCommand {
         json(dir.resolve("tangency.json"), tangency.json());
         json(dir.resolve("risk-current.json"), currentView.json());
         json(dir.resolve("risk-proposal.json"), proposalView.json());
+        Path policy = in.resolve("policy.yaml");
+        String charts = DemoCharts.write(dir, u, Files.isRegularFile(policy) ? policy : null, prov, current, target,
+                riskFree);
         DemoSummary s = new DemoSummary(u, check.summary(), minVar, proposal, tangency, h, current, te, prov, warnings,
-                out);
+                out, charts);
         Files.writeString(dir.resolve("weights.csv"), s.weightsCsv());
         Files.writeString(dir.resolve("multipliers.csv"), s.multipliersCsv());
         Files.writeString(dir.resolve("risk.csv"), s.riskCsv());

@@ -31,10 +31,11 @@ import org.isorisk.engine.risk.TrackingError;
  * @param provenance input files, holdings included
  * @param warnings   what reading found
  * @param folder     where the results were written
+ * @param charts     the paragraph that describes the charts written, or null when none were
  */
 public record DemoSummary(LoadedUniverse inputs, AssumptionSummary check, SolveView minVar, SolveView proposal,
                           SolveView tangency, PortfolioFile holdings, RiskDecomposition current, TrackingError te,
-                          Provenance provenance, List<String> warnings, Path folder) {
+                          Provenance provenance, List<String> warnings, Path folder, String charts) {
 
     /** The files the demo writes besides the copied inputs, in the order listed. */
     public static final List<String> FILES = List.of("summary.txt", "check.json", "minimum-variance.json",
@@ -125,6 +126,9 @@ public record DemoSummary(LoadedUniverse inputs, AssumptionSummary check, SolveV
         b.append(Sections.bullets("Warnings:", warnings));
         b.append('\n').append(Text.wrap("Results written to " + folder + "/: " + String.join(", ", FILES)
                 + ", and a copy of the inputs in inputs/.", "", ""));
+        if (charts != null) {
+            b.append(Text.wrap(charts, "", ""));
+        }
         b.append('\n').append(Text.caution());
         return b.toString();
     }

@@ -131,6 +131,7 @@ final class FrontierChart {
                 .yAxisTitle("Expected return (annualised, %)").build();
         Style.apply(chart.getStyler());
         chart.getStyler().setXAxisMin(0.0).setXAxisMax(xMax);
+        Style.guardTicks(chart, 0.0, xMax);
         chart.getStyler().setYAxisMin(yMin).setYAxisMax(yMax);
         chart.getStyler().setxAxisTickLabelsFormattingFunction(Style.percentTicks(2));
         chart.getStyler().setyAxisTickLabelsFormattingFunction(Style.percentTicks(2));

@@ -85,6 +85,7 @@ final class MarginalRiskChart {
         double step = s.marginalStep();
         chart.getStyler().setyAxisTickLabelsFormattingFunction(v -> Style.percentTicks(3).apply(v * step));
         chart.getStyler().setXAxisMin(lo).setXAxisMax(hi);
+        Style.guardTicks(chart, lo, hi);
 
         double yMax = 0;
         double yMin = 0;

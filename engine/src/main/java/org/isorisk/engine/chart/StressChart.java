@@ -72,6 +72,7 @@ final class StressChart {
         Style.apply(chart.getStyler());
         double span = Math.max(yHi - yLo, 0.005);
         chart.getStyler().setXAxisMin(0.0).setXAxisMax(xMax * 1.1);
+        Style.guardTicks(chart, 0.0, xMax * 1.1);
         double yMin = yLo - 0.08 * span;
         chart.getStyler().setYAxisMin(yMin > 0 && yMin < 0.15 * span ? 0.0 : yMin).setYAxisMax(yHi + 0.1 * span);
         chart.getStyler().setxAxisTickLabelsFormattingFunction(Style.percentTicks(2));

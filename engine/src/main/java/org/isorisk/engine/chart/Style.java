@@ -82,6 +82,23 @@ final class Style {
         };
     }
 
+    /** Name of the hidden series that keeps XChart's x ticks at round values. */
+    static final String TICK_GUARD = "tick-guard";
+
+    /**
+     * Adds, as the chart's first series, a hidden two-point series at the ends of the x axis. XChart puts the x ticks
+     * at the data's own x values when those are equally spaced to within an absolute 0.0001 (so, on a decimal
+     * return axis, whenever the targets come from an even grid), which gives labels such as 4.36 %, 4.56 %; the
+     * guard's two values come first, out of order, so the spacing test fails and the ticks fall on round values.
+     */
+    static void guardTicks(org.knowm.xchart.XYChart chart, double xMin, double xMax) {
+        org.knowm.xchart.XYSeries g = chart.addSeries(TICK_GUARD, new double[] {xMax, xMin},
+                new double[] {Double.NaN, Double.NaN});
+        g.setXYSeriesRenderStyle(org.knowm.xchart.XYSeries.XYSeriesRenderStyle.Scatter);
+        g.setMarker(org.knowm.xchart.style.markers.SeriesMarkers.NONE);
+        g.setShowInLegend(false);
+    }
+
     /** Applies the house look to an XChart styler. */
     static void apply(AxesChartStyler s) {
         s.setLocale(Locale.ROOT);

@@ -177,6 +177,7 @@ final class WeightsChart {
         Style.apply(chart.getStyler());
         chart.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
         chart.getStyler().setXAxisMin(xs[0]).setXAxisMax(xs[k - 1]);
+        Style.guardTicks(chart, xs[0], xs[k - 1]);
         double ySpan = top - bottom;
         chart.getStyler().setYAxisMin(bottom < -1e-9 ? bottom - 0.02 * ySpan : 0.0);
         chart.getStyler().setYAxisMax(top + 0.02 * ySpan);
