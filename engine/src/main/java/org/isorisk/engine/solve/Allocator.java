@@ -15,6 +15,7 @@ import org.isorisk.engine.model.MertonScalars;
 import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Relation;
+import org.isorisk.engine.model.ReturnRange;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.model.SolverSettings;
 
@@ -39,6 +40,17 @@ public final class Allocator {
      * @throws InputException      when the request cannot be solved as asked (e.g. closed form with bounds)
      */
     public static Solution solve(AllocationRequest r) {
+        return solve(r, null);
+    }
+
+    /**
+     * Solves one allocation problem, warm-starting the numerical method from a previous solution over the same
+     * assets (a neighbouring target of a frontier sweep, or the base case of a stress run). The closed form
+     * ignores the warm start.
+     *
+     * @param warmStart a previous solution, or null for a cold start
+     */
+    public static Solution solve(AllocationRequest r, Solution warmStart) {
         Mandate m = r.mandate();
         Method method = r.method();
         if (method == Method.AUTO) {
@@ -52,6 +64,9 @@ public final class Allocator {
         }
         if (method == Method.CRITICAL_LINE) {
             return criticalLine(r);
+        }
+        if (method == Method.NUMERICAL) {
+            return session(r.universe(), m, r.settings()).solve(r.objective(), warmStart);
         }
         if (method == Method.CLOSED_FORM) {
             if (!m.equalitiesOnly()) {
@@ -115,6 +130,21 @@ public final class Allocator {
     /** True when {@link Method#CRITICAL_LINE} can solve the mandate (what {@link Method#AUTO} checks). */
     public static boolean criticalLineApplies(Mandate m) {
         return !m.equalitiesOnly() && MandateSweep.applies(m);
+    }
+
+    /**
+     * A reusable numerical solver for one universe and mandate (frontier sweeps, stress runs): it checks the
+     * mandate and the convexity of Σ once and warm-starts each solve.
+     *
+     * @param settings null for {@link SolverSettings#defaults()}
+     */
+    public static SolverSession session(AssetUniverse u, Mandate m, SolverSettings settings) {
+        return new SolverSession(u, m, settings);
+    }
+
+    /** The lowest and highest expected return the mandate allows (linear programming), with the end portfolios. */
+    public static ReturnRange returnRange(AssetUniverse u, Mandate m) {
+        return new SolverSession(u, m, null).returnRange();
     }
 
     /** Closed-form solve on an already factored universe (for sweeps sharing one factorisation). */
