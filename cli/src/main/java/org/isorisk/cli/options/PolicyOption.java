@@ -27,6 +27,13 @@ public final class PolicyOption {
                     + "target rule. Without it only the budget applies and short positions are allowed.")
     Path policy;
 
+    /** A policy option naming {@code file}, for commands that read a policy of their own (the demo). */
+    public static PolicyOption of(Path file) {
+        PolicyOption o = new PolicyOption();
+        o.policy = file;
+        return o;
+    }
+
     /** The policy file, if one was given. */
     public Optional<Path> path() {
         return Optional.ofNullable(policy);
