@@ -472,7 +472,8 @@ final class MandateSweep {
                 "target return %s is above the highest return the mandate allows, %s (%s); achievable returns run "
                         + "from %s to %s; fix: choose a target of at most %s or loosen the upper bounds",
                 Explain.percent(target), Explain.percent(mMax), describe(end), Explain.percent(mMin),
-                Explain.percent(mMax), Explain.percent(mMax)), endNames(end, true));
+                Explain.percent(mMax), Explain.percent(mMax)), endNames(end, true), new double[] {mMin, mMax},
+                byName(end.weights()));
     }
 
     private NoSolutionException belowMinimum(double target, CriticalLine.Point end) {
@@ -482,7 +483,17 @@ final class MandateSweep {
                 "target return %s is below the lowest return the mandate allows, %s (%s); achievable returns run "
                         + "from %s to %s; fix: choose a target of at least %s or loosen the bounds",
                 Explain.percent(target), Explain.percent(mMin), describe(end), Explain.percent(mMin),
-                Explain.percent(mMax), Explain.percent(mMin)), endNames(end, false));
+                Explain.percent(mMax), Explain.percent(mMin)), endNames(end, false), new double[] {mMin, mMax},
+                byName(end.weights()));
+    }
+
+    /** Weights by asset name, in universe order (the end portfolio an infeasible target reports). */
+    private Map<String, Double> byName(double[] w) {
+        Map<String, Double> out = new java.util.LinkedHashMap<>();
+        for (int i = 0; i < n; i++) {
+            out.put(u.assets().get(i), w[i]);
+        }
+        return out;
     }
 
     /**
