@@ -8,6 +8,7 @@ import org.isorisk.cli.commands.ChartCommand;
 import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.EstimateCommand;
+import org.isorisk.cli.commands.FrontierCommand;
 import org.isorisk.cli.commands.RiskCommand;
 import org.isorisk.cli.commands.SolveCommand;
 import org.isorisk.engine.explain.Caution;
@@ -32,6 +33,7 @@ public final class IsoriskCommand implements Runnable {
     public static final List<Class<?>> COMMANDS = List.of(
             CheckCommand.class,
             SolveCommand.class,
+            FrontierCommand.class,
             EstimateCommand.class,
             RiskCommand.class,
             ChartCommand.class,

@@ -16,8 +16,8 @@ class RootCommandTests {
     void withoutACommandItExitsTwoNamingTheCommands() {
         Run r = Run.of();
         assertEquals(2, r.code(), r.toString());
-        assertEquals("isorisk: error: name a command: check, solve, estimate, risk, chart, demo (see 'isorisk --help')\n",
-                r.err());
+        assertEquals("isorisk: error: name a command: check, solve, frontier, estimate, risk, chart, demo (see "
+                + "'isorisk --help')\n", r.err());
         assertEquals("", r.out());
     }
 

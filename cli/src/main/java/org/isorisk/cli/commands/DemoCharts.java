@@ -7,6 +7,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.engine.chart.AssetColours;
 import org.isorisk.engine.chart.ChartContext;
 import org.isorisk.engine.chart.ChartFormat;
@@ -17,10 +18,8 @@ import org.isorisk.engine.chart.FrontierChartData;
 import org.isorisk.engine.chart.PortfolioPoint;
 import org.isorisk.engine.chart.RiskShares;
 import org.isorisk.engine.explain.Explain;
-import org.isorisk.engine.frontier.Frontiers;
 import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.io.LoadedUniverse;
-import org.isorisk.engine.io.PolicyReader;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.model.AllocationRequest;
@@ -51,17 +50,22 @@ final class DemoCharts {
      * Draws every chart into {@code dir/charts} and returns the paragraph of the summary that says what they show.
      *
      * @param policyFile the policy (YAML), or null for the budget alone
+     * @param holdings   the provenance of the inputs with the holdings file
      * @param current    risk of the current holdings
      */
-    static String write(Path dir, LoadedUniverse u, Path policyFile, Provenance provenance, RiskDecomposition current,
-                        double target, double riskFree) throws IOException {
-        Mandate mandate = Mandate.fullyInvested(u.assets().size());
-        Provenance prov = provenance;
-        if (policyFile != null) {
-            mandate = PolicyReader.read(policyFile, u.assets()).mandate();
-            prov = prov.withInput(SourceFile.of(policyFile, "policy"));
+    static String write(Path dir, LoadedUniverse universe, Path policyFile, Provenance holdings,
+                        RiskDecomposition current, double target, double riskFree) throws IOException {
+        PolicyOption.Loaded loaded = (policyFile == null ? new PolicyOption() : PolicyOption.of(policyFile))
+                .load(universe);
+        LoadedUniverse u = loaded.inputs();
+        Mandate mandate = loaded.mandate(java.util.Map.of());
+        Provenance prov = u.provenance();
+        for (SourceFile f : holdings.inputs()) {
+            if (!prov.inputs().contains(f)) {
+                prov = prov.withInput(f);
+            }
         }
-        Frontier f = Frontiers.of(u.universe(), mandate, Grid.points(POINTS), null);
+        Frontier f = FrontierCommand.run(loaded, Grid.points(POINTS), false).frontier();
         Solution proposal = Allocator.solve(AllocationRequest.of(u.universe(), mandate, Objective.targetReturn(target)));
         Solution tangency = Allocator.solve(AllocationRequest.of(u.universe(), mandate, Objective.tangency(riskFree)));
         RiskDecomposition proposalRisk = RiskAnalysis.decompose(u.universe(), proposal.weights());

@@ -4,19 +4,17 @@ import java.nio.file.Path;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.Decimal;
 import org.isorisk.cli.options.InputOptions;
+import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.engine.chart.AssetColours;
 import org.isorisk.engine.chart.ChartContext;
 import org.isorisk.engine.chart.ChartFormat;
 import org.isorisk.engine.chart.ChartSettings;
 import org.isorisk.engine.chart.Figure;
-import org.isorisk.engine.frontier.Frontiers;
 import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.io.LoadedUniverse;
-import org.isorisk.engine.io.PolicyReader;
 import org.isorisk.engine.io.PortfolioFile;
 import org.isorisk.engine.io.PortfolioReader;
 import org.isorisk.engine.io.Provenance;
-import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
@@ -30,19 +28,17 @@ import picocli.CommandLine.Option;
 
 /**
  * What the frontier-based charts share: the assumptions, the mandate ({@code --policy}, or the budget alone), the
- * frontier computed by the engine ({@link Frontiers#of}: exact corners under bounds, sampled under groups or general
- * limits, the closed form without a policy), the optional proposal, current portfolio and tangency portfolio, and
- * the output file.
+ * frontier exactly as {@code isorisk frontier} computes it (exact corners under bounds, sampled under groups or
+ * general limits, the closed form without a policy), the optional proposal and current portfolio, and the output
+ * file.
  */
 abstract class FrontierChartBase extends BaseCommand {
 
     @Mixin
     InputOptions inputs;
 
-    @Option(names = "--policy", paramLabel = "FILE",
-            description = "Mandate policy (YAML): bounds, groups, general limits. Without it only the budget applies "
-                    + "and short positions are allowed.")
-    Path policy;
+    @Mixin
+    PolicyOption policyOption;
 
     @Option(names = "--points", paramLabel = "N", defaultValue = "60",
             description = "Frontier portfolios sampled from the minimum-variance to the maximum-return end, besides "
@@ -88,17 +84,15 @@ abstract class FrontierChartBase extends BaseCommand {
     }
 
     private Loaded load() {
-        LoadedUniverse u = inputs.load(true, spec.qualifiedName().replace("isorisk ", ""));
+        PolicyOption.Loaded loaded = policyOption.load(inputs.load(true, spec.qualifiedName().replace("isorisk ", "")));
+        LoadedUniverse u = loaded.inputs();
         for (String w : u.warnings()) {
             err().println("isorisk: warning: " + w);
         }
         Provenance prov = u.provenance();
-        Mandate mandate = Mandate.fullyInvested(u.assets().size());
-        if (policy != null) {
-            mandate = PolicyReader.read(policy, u.assets()).mandate();
-            prov = prov.withInput(SourceFile.of(policy, "policy"));
-        }
-        Frontier f = Frontiers.of(u.universe(), mandate, Grid.points(points), null);
+        Mandate mandate = loaded.mandate(java.util.Map.of());
+        // the same frontier as 'isorisk frontier': exact corners, sampled QP or closed form, as the mandate allows
+        Frontier f = FrontierCommand.run(loaded, Grid.points(points), false).frontier();
         Solution proposal = target == null ? null : Allocator.solve(AllocationRequest.of(u.universe(), mandate,
                 Objective.targetReturn(inputs.units().rate(target))));
         RiskDecomposition now = null;

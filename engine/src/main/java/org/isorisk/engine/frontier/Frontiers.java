@@ -14,10 +14,7 @@ import org.isorisk.engine.model.SolverSettings;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.engine.solve.Factored;
 
-/**
- * The one front door for frontiers: the exact mandate frontier, the unconstrained closed-form frontier, and the
- * frontier of a general mandate (groups, general constraints) sampled by the numerical QP; {@link #of} picks.
- */
+/** The one front door for frontiers: the exact mandate frontier and the unconstrained closed-form frontier. */
 public final class Frontiers {
     private Frontiers() {
     }
@@ -49,6 +46,60 @@ public final class Frontiers {
         Grid g = grid == null ? Grid.none() : grid;
         return Allocator.mandateFrontier(universe, mandate, range -> g.targets(range[1], range[2]), inefficientBranch,
                 settings);
+    }
+
+    /**
+     * The frontier of a general mandate (groups, general linear constraints: where the critical line method does
+     * not apply) sampled on the grid by the active-set QP of one {@link org.isorisk.engine.solve.SolverSession}:
+     * the mandate and the convexity of Σ are checked once, the minimum-variance portfolio is solved first and each
+     * target, in increasing order, is warm-started from the previous solution. There are no corner portfolios
+     * ({@link Frontier#corners()} is empty). {@link Grid#points(int)} spaces targets between the minimum-variance
+     * return and the highest return the mandate allows (the highest single-asset return times the budget when the
+     * mandate does not bound it). Targets the mandate cannot reach, or that have no solution, are listed in
+     * {@link Frontier#rejected()} with the reason.
+     *
+     * @param universe assets and assumptions (not modified)
+     * @param mandate  the mandate (any; with bounds only, {@link #mandate} gives the exact corners instead)
+     * @param grid     which targets to sample
+     * @param settings tolerances and limits; null for the defaults
+     * @throws NoSolutionException when the mandate admits no portfolio (with the constraints involved) or Σ is not
+     *                             positive definite
+     */
+    public static Frontier sampled(AssetUniverse universe, Mandate mandate, Grid grid, SolverSettings settings) {
+        SolverSettings s = settings == null ? SolverSettings.defaults() : settings;
+        org.isorisk.engine.solve.SolverSession session = Allocator.session(universe, mandate, s);
+        org.isorisk.engine.model.ReturnRange range = session.returnRange();
+        Solution minVar = session.solve(Objective.minimumVariance());
+        double low = minVar.expectedReturn();
+        double high = range.max();
+        if (!Double.isFinite(high)) {
+            high = Double.NEGATIVE_INFINITY;
+            for (double v : universe.expectedReturns()) {
+                high = Math.max(high, v * mandate.budget());
+            }
+        }
+        Grid g = grid == null ? Grid.none() : grid;
+        double[] targets = g.targets(low, Math.max(low, high)).clone();
+        java.util.Arrays.sort(targets);
+        List<Solution> points = new ArrayList<>();
+        List<RejectedTarget> rejected = new ArrayList<>();
+        Solution warm = minVar;
+        for (double t : targets) {
+            try {
+                Solution p = session.solve(Objective.targetReturn(t), warm);
+                points.add(p);
+                warm = p;
+            } catch (NoSolutionException e) {
+                rejected.add(new RejectedTarget(t, e.getMessage()));
+            }
+        }
+        MertonScalars ms;
+        try {
+            ms = Allocator.merton(Factored.of(universe, s), mandate.budget());
+        } catch (NoSolutionException e) {
+            ms = null; // no closed-form frontier to compare with (e.g. equal expected returns)
+        }
+        return new Frontier(List.of(), points, ms, low, range.max(), List.of(), range.min(), rejected);
     }
 
     /**
@@ -87,62 +138,5 @@ public final class Frontiers {
         }
         return new Frontier(List.of(), points, ms, low, Double.POSITIVE_INFINITY, List.of(), Double.NEGATIVE_INFINITY,
                 rejected);
-    }
-
-    /**
-     * The frontier of any mandate, by the most exact method that applies: the closed form when only the budget
-     * applies ({@link #unconstrained}), the critical line method for bounds and fixed weights ({@link #mandate},
-     * with corners), the numerical QP at each target of the grid otherwise ({@link #sampled}, no corners).
-     */
-    public static Frontier of(AssetUniverse universe, Mandate mandate, Grid grid, SolverSettings settings) {
-        if (mandate.equalitiesOnly() && mandate.fixed().isEmpty() && mandate.constraints().isEmpty()) {
-            return unconstrained(universe, mandate.budget(), grid, settings);
-        }
-        if (Allocator.criticalLineApplies(mandate)) {
-            return mandate(universe, mandate, grid, settings);
-        }
-        return sampled(universe, mandate, grid, settings);
-    }
-
-    /**
-     * The frontier of a general mandate (bounds, groups, general linear constraints) sampled by the numerical QP:
-     * the minimum-variance portfolio, then the minimum-variance portfolio at each target of the grid from there to
-     * the highest return the mandate allows, each solve warm-started from the previous one. There are no corner
-     * portfolios (the critical line method covers bounds and fixed weights only); between two samples the binding
-     * set may change. Targets outside the achievable range, or that fail, are listed in {@link Frontier#rejected()}.
-     *
-     * @param universe assets and assumptions (not modified)
-     * @param mandate  the mandate
-     * @param grid     which targets to sample; {@link Grid#points(int)} spaces them from the minimum-variance
-     *                 return to the highest return the mandate allows
-     * @param settings tolerances and limits; null for the defaults
-     * @throws NoSolutionException when the mandate admits no portfolio
-     */
-    public static Frontier sampled(AssetUniverse universe, Mandate mandate, Grid grid, SolverSettings settings) {
-        org.isorisk.engine.solve.SolverSession session = Allocator.session(universe, mandate, settings);
-        org.isorisk.engine.model.ReturnRange range = session.returnRange();
-        Solution mv = session.solve(Objective.minimumVariance());
-        double low = mv.expectedReturn();
-        Grid g = grid == null ? Grid.none() : grid;
-        double[] targets = g.targets(low, range.max()).clone();
-        java.util.Arrays.sort(targets);
-        List<Solution> points = new ArrayList<>();
-        points.add(mv);
-        List<RejectedTarget> rejected = new ArrayList<>();
-        Solution warm = mv;
-        for (double t : targets) {
-            if (Math.abs(t - low) <= 1e-12 * Math.max(1, Math.abs(low))) {
-                continue; // the minimum-variance portfolio is already the first point
-            }
-            try {
-                Solution s = session.solve(Objective.targetReturn(t), warm);
-                points.add(s);
-                warm = s;
-            } catch (NoSolutionException e) {
-                rejected.add(new RejectedTarget(t, e.getMessage()));
-            }
-        }
-        MertonScalars ms = Allocator.merton(universe, mandate.budget());
-        return new Frontier(List.of(), points, ms, low, range.max(), List.of(), range.min(), rejected);
     }
 }

@@ -31,27 +31,23 @@ public record SourceFile(String role, String path, String name, String sha256, l
         return sha256.substring(0, SHORT_HASH_LENGTH);
     }
 
-    /**
-     * Describes a file that another reader parses (e.g. the policy file), by its bytes.
-     *
-     * @throws org.isorisk.engine.error.InputException when the file cannot be read
-     */
-    public static SourceFile of(java.nio.file.Path path, String role) {
-        try {
-            byte[] b = java.nio.file.Files.readAllBytes(path);
-            java.nio.file.Path name = path.getFileName();
-            return new SourceFile(role, path.toString(), name == null ? path.toString() : name.toString(), sha256(b),
-                    b.length);
-        } catch (java.io.IOException e) {
-            throw org.isorisk.engine.error.InputException.of("cannot read the file: " + e.getMessage())
-                    .file(path.toString()).fix("check the path").build();
-        }
-    }
-
     /** Describes content that did not come from a file (tests, text given in memory). */
     public static SourceFile ofText(String role, String name, String text) {
         byte[] b = text.getBytes(StandardCharsets.UTF_8);
         return new SourceFile(role, name, name, sha256(b), b.length);
+    }
+
+    /**
+     * Describes a file that was read (e.g. a policy file) from its bytes.
+     *
+     * @param role  what the file was read as, e.g. {@code policy}
+     * @param path  the path as the user gave it
+     * @param bytes the file's content (not modified)
+     */
+    public static SourceFile of(String role, java.nio.file.Path path, byte[] bytes) {
+        java.nio.file.Path name = path.getFileName();
+        return new SourceFile(role, path.toString(), name == null ? path.toString() : name.toString(), sha256(bytes),
+                bytes.length);
     }
 
     /** Lower-case hex SHA-256 of {@code bytes}. */

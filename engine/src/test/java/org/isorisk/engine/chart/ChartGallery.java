@@ -34,7 +34,7 @@ public final class ChartGallery {
         AssetUniverse u = ChartFixtures.sampleFund();
         Frontier bounds = Frontiers.mandate(u, ChartFixtures.sampleBounds(), Grid.points(60), null);
         write(out, "sample", u, ChartFixtures.sampleBounds(), bounds, ctx, s, ChartFixtures.sampleCurrent());
-        Frontier policy = Frontiers.of(u, ChartFixtures.samplePolicy(), Grid.points(60), null);
+        Frontier policy = Frontiers.sampled(u, ChartFixtures.samplePolicy(), Grid.points(60), null);
         write(out, "policy", u, ChartFixtures.samplePolicy(), policy, ctx, s, ChartFixtures.sampleCurrent());
         if (args.length > 1 && args[1].equals("sample")) {
             return;
@@ -64,7 +64,7 @@ public final class ChartGallery {
         AssetUniverse shocked = u.withAssumptions(scale(u.expectedReturns(), 0.8), scaleCov(u.covariance(), 1.3));
         figs.add(Charts.stressOverlay(List.of(new NamedFrontier("Base", f),
                 new NamedFrontier("Returns 20 % lower, variances 30 % higher", u.size() == 12 && f.corners().isEmpty()
-                        ? Frontiers.of(shocked, ChartFixtures.samplePolicy(), Grid.points(30), null)
+                        ? Frontiers.sampled(shocked, ChartFixtures.samplePolicy(), Grid.points(30), null)
                         : u.size() == 12 ? Frontiers.mandate(shocked, ChartFixtures.sampleBounds(), Grid.points(30), null)
                         : ChartFixtures.boxedFrontier(shocked, 0.05, 30))), ctx, s));
         for (Figure fig : figs) {

@@ -1,7 +1,6 @@
 package org.isorisk.engine.frontier;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertSame;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Path;
@@ -43,12 +42,12 @@ class SampledFrontierTests {
     }
 
     @Test
-    void theSamplePolicyWithGroupsIsSampledWithCertifiedPointsAndOfPicksTheMethod() {
+    void theSamplePolicyWithGroupsIsSampledWithCertifiedPoints() {
         Path data = Path.of("..", "sample-data");
         AssetUniverse u = UniverseLoader.load(UniverseFiles.of(data.resolve("expected_returns.csv"),
                 data.resolve("covariance.csv"))).universe();
         Mandate policy = PolicyReader.read(data.resolve("policy.yaml"), u.assets()).mandate();
-        Frontier f = Frontiers.of(u, policy, Grid.points(12), null);
+        Frontier f = Frontiers.sampled(u, policy, Grid.points(12), null);
         assertTrue(f.corners().isEmpty(), "groups: no corner portfolios");
         assertEquals(12, f.points().size());
         Solution first = f.points().get(0);
@@ -61,10 +60,5 @@ class SampledFrontierTests {
             previous = s.volatility();
         }
         assertEquals(f.maxReturn(), f.points().get(11).expectedReturn(), Tolerances.NUMERICAL);
-        // bounds only: the exact method; budget only: the closed form
-        Mandate boxed = FactorModels.boxed(u.size(), 0.0, 0.3);
-        assertEquals(Method.CRITICAL_LINE, Frontiers.of(u, boxed, Grid.points(3), null).points().get(1).method());
-        assertSame(Method.CLOSED_FORM, Frontiers.of(u, Mandate.fullyInvested(u.size()), Grid.points(3), null).points()
-                .get(1).method());
     }
 }
