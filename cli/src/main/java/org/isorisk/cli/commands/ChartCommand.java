@@ -36,13 +36,19 @@ public final class ChartCommand implements Runnable {
                 "name a chart: " + String.join(", ", spec.subcommands().keySet()));
     }
 
+    /** Writes {@code figure} to {@code file} atomically in the format of its extension; returns the format. */
+    static ChartFormat writeFile(Figure figure, Path file, ChartSettings settings) {
+        ChartFormat format = ChartFormat.fromFileName(file.toString());
+        AtomicWrite.bytes(file, out -> Charts.write(figure, format, settings, out));
+        return format;
+    }
+
     /**
      * Writes {@code figure} to {@code file} atomically in the format of its extension and prints what was written,
      * the chart's notices and the caution.
      */
     static void write(BaseCommand cmd, Figure figure, Path file, ChartSettings settings) {
-        ChartFormat format = ChartFormat.fromFileName(file.toString());
-        AtomicWrite.bytes(file, out -> Charts.write(figure, format, settings, out));
+        ChartFormat format = writeFile(figure, file, settings);
         StringBuilder sb = new StringBuilder();
         String size = format == ChartFormat.PNG
                 ? String.format(Locale.ROOT, "%d x %d pixels", Math.round(figure.getWidth() * settings.pngScale()),

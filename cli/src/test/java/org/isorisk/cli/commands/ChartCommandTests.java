@@ -113,6 +113,24 @@ class ChartCommandTests {
     }
 
     @Test
+    void frontierWithChartWritesTheChartBesideItsJsonWhichStaysPure() throws IOException {
+        Path policy = Files.copy(Run.SAMPLE.resolve("policy.yaml"), dir.resolve("policy.yaml"));
+        Path png = dir.resolve("frontier.png");
+        Run r = Run.of("frontier", "--expected-returns", mu, "--covariance", cov, "--policy", policy.toString(),
+                "--format", "json", "--chart", png.toString());
+        assertEquals(0, r.code(), r.toString());
+        assertEquals("optimal", r.json().get("status").asText(), r.out());
+        assertEquals("isorisk: wrote " + png + "\n", r.err());
+        BufferedImage img = ImageIO.read(png.toFile());
+        assertEquals(1600, img.getWidth());
+        Run bad = Run.of("frontier", "--expected-returns", mu, "--covariance", cov, "--chart",
+                dir.resolve("f.jpg").toString());
+        assertEquals(2, bad.code());
+        assertEquals("", bad.out());
+        assertTrue(bad.err().contains("the chart format 'jpg' is not supported"), bad.err());
+    }
+
+    @Test
     void marginalRiskWithoutAPolicyIsTheClosedFormCurveAlone() {
         Run r = Run.of("chart", "marginal-risk", "--expected-returns", mu, "--covariance", cov, "--out",
                 dir.resolve("m.svg").toString());
