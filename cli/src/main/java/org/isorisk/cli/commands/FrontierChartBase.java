@@ -57,6 +57,11 @@ abstract class FrontierChartBase extends BaseCommand {
             description = "The chart file; its extension gives the format: .png, .svg or .pdf.")
     Path out;
 
+    @Option(names = "--png-scale", paramLabel = "X", defaultValue = "2",
+            description = "Resolution of a PNG as a multiple of the chart's 800 x 600 size (default: ${DEFAULT-VALUE}, "
+                    + "for print; 1 for screens).")
+    double pngScale;
+
     @Option(names = "--fund", paramLabel = "NAME",
             description = "The fund's name for the footnote (default: the inputs' '# scenario:' line).")
     String fund;
@@ -77,7 +82,7 @@ abstract class FrontierChartBase extends BaseCommand {
                     .value(points).fix("give --points 2 or more (default 60)").build();
         }
         Loaded in = load();
-        ChartSettings s = ChartSettings.defaults();
+        ChartSettings s = ChartSettings.defaults().withPngScale(pngScale);
         Figure fig = draw(in, ChartContext.of(in.provenance(), fund), AssetColours.of(in.universe().assets()), s);
         ChartCommand.write(this, fig, out, s);
         return ExitCode.OK;

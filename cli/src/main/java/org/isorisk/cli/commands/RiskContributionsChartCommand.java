@@ -42,6 +42,11 @@ public final class RiskContributionsChartCommand extends BaseCommand {
             description = "The chart file; its extension gives the format: .png, .svg or .pdf.")
     Path out;
 
+    @Option(names = "--png-scale", paramLabel = "X", defaultValue = "2",
+            description = "Resolution of a PNG as a multiple of the chart's 800 x 600 size (default: ${DEFAULT-VALUE}, "
+                    + "for print; 1 for screens).")
+    double pngScale;
+
     @Option(names = "--fund", paramLabel = "NAME",
             description = "The fund's name for the footnote (default: the inputs' '# scenario:' line).")
     String fund;
@@ -62,7 +67,7 @@ public final class RiskContributionsChartCommand extends BaseCommand {
         for (String w : u.warnings()) {
             err().println("isorisk: warning: " + w);
         }
-        ChartSettings s = ChartSettings.defaults();
+        ChartSettings s = ChartSettings.defaults().withPngScale(pngScale);
         Figure fig = Charts.riskContributions(now, proposed, ChartContext.of(prov, fund), AssetColours.of(u.assets()),
                 s);
         ChartCommand.write(this, fig, out, s);

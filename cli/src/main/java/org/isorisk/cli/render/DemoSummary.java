@@ -153,7 +153,7 @@ public record DemoSummary(LoadedUniverse inputs, AssumptionSummary check, SolveV
         b.append('\n').append(Text.wrap("Results written to " + folder + "/: " + String.join(", ", written())
                 + ", and a copy of the inputs in inputs/.", "", ""));
         if (charts != null) {
-            b.append(Text.wrap(charts, "", ""));
+            b.append('\n').append(Text.wrap(charts, "", ""));
         }
         b.append('\n').append(Text.caution());
         return b.toString();

@@ -48,6 +48,12 @@ public record ChartSettings(int width, int height, double pngScale, int assetLab
         return new ChartSettings(800, 600, 2.0, 25, 12, 0.02, 20, 14, 0.0025);
     }
 
+    /** The same settings with another PNG resolution multiplier. */
+    public ChartSettings withPngScale(double scale) {
+        return new ChartSettings(width, height, scale, assetLabelLimit, bandLimit, otherThreshold, barLimit,
+                cornerLabelLimit, marginalStep);
+    }
+
     /** The same settings with another size. */
     public ChartSettings withSize(int w, int h) {
         return new ChartSettings(w, h, pngScale, assetLabelLimit, bandLimit, otherThreshold, barLimit, cornerLabelLimit,
