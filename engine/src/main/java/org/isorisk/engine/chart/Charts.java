@@ -83,6 +83,16 @@ public final class Charts {
     }
 
     /**
+     * Base and scenario curves on one chart (the first is the base), from volatilities at return targets, e.g. a
+     * stress run's scenario points, when the portfolios themselves are not needed.
+     *
+     * @throws org.isorisk.engine.error.InputException when the list is empty or two curves share a name
+     */
+    public static Figure stressCurves(List<StressCurve> curves, ChartContext context, ChartSettings settings) {
+        return StressChart.buildCurves(curves, context, settings);
+    }
+
+    /**
      * Writes the figure to {@code out} in {@code format}; PNG at {@code pngScale} times the logical size with the
      * matching resolution recorded (72 dpi × scale). Does not close {@code out}.
      */

@@ -31,34 +31,46 @@ final class StressChart {
             throw InputException.of("the stress overlay needs at least one frontier (the base)")
                     .fix("give the base frontier and the scenario frontiers").build();
         }
-        Set<String> names = new HashSet<>();
-        List<double[][]> curves = new ArrayList<>();
-        double xMax = 0;
-        double yLo = Double.POSITIVE_INFINITY;
-        double yHi = Double.NEGATIVE_INFINITY;
+        List<StressCurve> curves = new ArrayList<>();
         for (NamedFrontier nf : frontiers) {
-            if (!names.add(nf.name())) {
-                throw InputException.of("two frontiers of the stress overlay share the name '" + nf.name() + "'")
-                        .fix("name each scenario once").build();
-            }
             FrontierPath path = FrontierPath.of(nf.frontier());
-            double[][] c;
             if (path.size() >= 2) {
                 int k = path.minimumVolatilityIndex();
                 if (path.size() - k < 2) {
                     throw InputException.of("frontier '" + nf.name() + "' has a single portfolio on its efficient "
                             + "branch").fix("compute more frontier points for this scenario").build();
                 }
-                c = new double[][] {path.volatilities(k, path.size()), path.returns(k, path.size())};
+                curves.add(new StressCurve(nf.name(), path.volatilities(k, path.size()), path.returns(k, path.size())));
             } else if (path.size() == 0 && FrontierChart.usable(nf.frontier().unconstrained()) != null
                     && Double.isFinite(nf.frontier().maxReturn())) {
                 MertonScalars ms = nf.frontier().unconstrained();
-                c = FrontierChart.hyperbola(ms, ms.minimumVarianceReturn(), nf.frontier().maxReturn());
+                double[][] c = FrontierChart.hyperbola(ms, ms.minimumVarianceReturn(), nf.frontier().maxReturn());
+                curves.add(new StressCurve(nf.name(), c[0], c[1]));
             } else {
                 throw InputException.of("frontier '" + nf.name() + "' is " + (path.size() == 1 ? "a single "
                         + "portfolio" : "empty") + ", so it cannot be drawn as a curve")
                         .fix("compute at least two frontier points for every scenario").build();
             }
+        }
+        return buildCurves(curves, ctx, s);
+    }
+
+    static Figure buildCurves(List<StressCurve> given, ChartContext ctx, ChartSettings s) {
+        if (given == null || given.isEmpty()) {
+            throw InputException.of("the stress overlay needs at least one frontier (the base)")
+                    .fix("give the base frontier and the scenario frontiers").build();
+        }
+        Set<String> names = new HashSet<>();
+        List<double[][]> curves = new ArrayList<>();
+        double xMax = 0;
+        double yLo = Double.POSITIVE_INFINITY;
+        double yHi = Double.NEGATIVE_INFINITY;
+        for (StressCurve sc : given) {
+            if (!names.add(sc.name())) {
+                throw InputException.of("two frontiers of the stress overlay share the name '" + sc.name() + "'")
+                        .fix("name each scenario once").build();
+            }
+            double[][] c = {sc.volatility(), sc.expectedReturn()};
             curves.add(c);
             for (int i = 0; i < c[0].length; i++) {
                 xMax = Math.max(xMax, c[0][i]);
@@ -77,15 +89,15 @@ final class StressChart {
         chart.getStyler().setYAxisMin(yMin > 0 && yMin < 0.15 * span ? 0.0 : yMin).setYAxisMax(yHi + 0.1 * span);
         chart.getStyler().setxAxisTickLabelsFormattingFunction(Style.percentTicks(2));
         chart.getStyler().setyAxisTickLabelsFormattingFunction(Style.percentTicks(2));
-        for (int j = 0; j < frontiers.size(); j++) {
+        for (int j = 0; j < given.size(); j++) {
             double[][] c = curves.get(j);
             Color col = COLOURS.get(j % COLOURS.size());
-            XYSeries line = FrontierChart.line(chart, CURVE_PREFIX + frontiers.get(j).name(), c[0], c[1], col,
+            XYSeries line = FrontierChart.line(chart, CURVE_PREFIX + given.get(j).name(), c[0], c[1], col,
                     STROKES.get(j % STROKES.size()));
-            String name = frontiers.get(j).name();
+            String name = given.get(j).name();
             boolean saysBase = name.toLowerCase(java.util.Locale.ROOT).contains("base");
             line.setLabel(j == 0 && !saysBase ? name + " (base)" : name);
-            XYSeries mv = FrontierChart.points(chart, MIN_PREFIX + frontiers.get(j).name(), new double[] {c[0][0]},
+            XYSeries mv = FrontierChart.points(chart, MIN_PREFIX + given.get(j).name(), new double[] {c[0][0]},
                     new double[] {c[1][0]}, col, new Mark(Mark.Kind.SQUARE, 9, Palette.BLACK, 1f));
             mv.setShowInLegend(false);
         }

@@ -37,6 +37,22 @@ class StressChartTests {
     }
 
     @Test
+    void scenarioCurvesWithoutPortfoliosAreDrawnAsGiven() {
+        double[] vol = {0.05, 0.06, 0.08};
+        double[] ret = {0.04, 0.05, 0.06};
+        Figure fig = Charts.stressCurves(List.of(new StressCurve("Base", vol, ret),
+                new StressCurve("crisis", new double[] {0.06, 0.075}, new double[] {0.04, 0.05})),
+                ChartFixtures.context(), S);
+        XYSeries s = ((XYChart) fig.chart()).getSeries(StressChart.CURVE_PREFIX + "crisis");
+        assertArrayEquals(new double[] {0.06, 0.075}, s.getXData(), 0.0);
+        assertArrayEquals(new double[] {0.04, 0.05}, s.getYData(), 0.0);
+        InputException one = assertThrows(InputException.class,
+                () -> new StressCurve("crash", new double[] {0.1}, new double[] {0.05}));
+        assertEquals("curve 'crash' has a single point, so it cannot be drawn as a curve; fix: compute at least two "
+                + "frontier points for every scenario", one.getMessage());
+    }
+
+    @Test
     void theBaseIsMarkedWhenItsNameDoesNotSaySo() {
         Figure fig = Charts.stressOverlay(List.of(new NamedFrontier("Today", ChartFixtures.sampleFrontier())),
                 ChartFixtures.context(), S);
