@@ -178,8 +178,9 @@ final class FrontierChart {
             if (!corners.isEmpty()) {
                 double[] cx = corners.stream().mapToDouble(FrontierPath.Step::sigma).toArray();
                 double[] cy = corners.stream().mapToDouble(FrontierPath.Step::m).toArray();
+                // many corners (large universes) as small marks, so that the curve stays visible between them
                 XYSeries c = points(chart, CORNERS, cx, cy, Palette.BLACK,
-                        new Mark(Mark.Kind.DIAMOND, 7, null, 0));
+                        new Mark(Mark.Kind.DIAMOND, corners.size() > 40 ? 4 : 7, null, 0));
                 c.setLabel("Corner portfolios (" + corners.size() + ")");
             }
             FrontierPath.Step mv = path.steps.get(k);

@@ -31,6 +31,10 @@ final class Guides extends Annotation {
     private final Color colour;
     private int omitted;
     private int labelled;
+    private int linesSkipped;
+
+    /** Guide lines closer than this to the last one drawn are skipped (a curtain of lines hides the data). */
+    static final double MIN_LINE_GAP = 4.0;
 
     Guides(List<Guide> guides, Color colour) {
         super(false);
@@ -46,6 +50,15 @@ final class Guides extends Annotation {
         return labelled;
     }
 
+    /** Guide lines left out at the last paint because they were closer than {@link #MIN_LINE_GAP} pixels. */
+    int linesSkipped() {
+        return linesSkipped;
+    }
+
+    int lines() {
+        return guides.size();
+    }
+
     @Override
     public void paint(Graphics2D g) {
         if (!isVisible) {
@@ -58,11 +71,19 @@ final class Guides extends Annotation {
         Font font = Style.labelFont();
         g.setStroke(Style.dashed(1f, 3f, 3f));
         g.setColor(colour);
+        linesSkipped = 0;
+        double lastLine = Double.NEGATIVE_INFINITY;
         for (Guide gd : guides) {
             double x = chart.getScreenXFromChart(gd.x());
-            if (x >= left - 0.5 && x <= right + 0.5) {
-                g.draw(new Line2D.Double(x, top, x, bottom));
+            if (x < left - 0.5 || x > right + 0.5) {
+                continue;
             }
+            if (x - lastLine < MIN_LINE_GAP) {
+                linesSkipped++;
+                continue;
+            }
+            g.draw(new Line2D.Double(x, top, x, bottom));
+            lastLine = x;
         }
         omitted = 0;
         labelled = 0;

@@ -128,7 +128,8 @@ final class MarginalRiskChart {
             }
             if (!cx.isEmpty()) {
                 XYSeries c = FrontierChart.points(chart, CORNERS, cx.stream().mapToDouble(Double::doubleValue).toArray(),
-                        cy.stream().mapToDouble(Double::doubleValue).toArray(), Palette.BLACK, new Mark(Mark.Kind.DIAMOND, 8, null, 0));
+                        cy.stream().mapToDouble(Double::doubleValue).toArray(), Palette.BLACK,
+                        new Mark(Mark.Kind.DIAMOND, cx.size() > 40 ? 4 : 8, null, 0));
                 c.setLabel("Corner portfolios");
             }
         }
@@ -214,8 +215,15 @@ final class MarginalRiskChart {
             String what = sampledChanges ? "change labels" : "corner labels";
             later.add(() -> {
                 int dropped = g.omitted() + limited;
-                return dropped > 0 ? String.format(Locale.ROOT, "%d of %d %s left out so that the rest stay legible.",
-                        dropped, total, what) : null;
+                String labelsText = dropped > 0 ? String.format(Locale.ROOT, "%d of %d %s left out so that the rest "
+                        + "stay legible", dropped, total, what) : null;
+                String linesText = g.linesSkipped() > 0 ? String.format(Locale.ROOT, "%d of %d guides closer than %.0f "
+                        + "pixels to their neighbour left out", g.linesSkipped(), g.lines(), Guides.MIN_LINE_GAP) : null;
+                if (labelsText == null && linesText == null) {
+                    return null;
+                }
+                return labelsText == null ? linesText + "." : linesText == null ? labelsText + "."
+                        : labelsText + "; " + linesText + ".";
             });
         }
         return new Figure(Figure.Kind.MARGINAL_RISK, chart, s, ctx, notices, later, true);

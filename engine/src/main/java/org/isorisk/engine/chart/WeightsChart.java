@@ -224,11 +224,15 @@ final class WeightsChart {
                         + "around each line; between samples the weights are drawn straight.");
             }
         }
+        List<java.util.function.Supplier<String>> later = new ArrayList<>();
         if (!guides.isEmpty()) {
-            chart.addAnnotation(new Guides(guides, Palette.alpha(Palette.BLACK, 0.4)));
+            Guides g = new Guides(guides, Palette.alpha(Palette.BLACK, 0.4));
+            chart.addAnnotation(g);
+            later.add(() -> g.linesSkipped() == 0 ? null : String.format(Locale.ROOT, "%d of %d guides left out: "
+                    + "closer than %.0f pixels to their neighbour.", g.linesSkipped(), g.lines(), Guides.MIN_LINE_GAP));
         }
         chart.addAnnotation(bandLabels); // after the guides, so that names sit on top
-        return new Figure(Figure.Kind.WEIGHTS, chart, s, ctx, notices, List.of());
+        return new Figure(Figure.Kind.WEIGHTS, chart, s, ctx, notices, later);
     }
 
     /** Polygon of a band: along the top edge left to right, back along the bottom edge. */
