@@ -165,6 +165,10 @@ public final class NotebookWriter {
                 "import pandas as pd",
                 "from IPython.display import Image, display",
                 "",
+                "pd.set_option(\"display.max_colwidth\", None)",
+                "pd.set_option(\"display.max_rows\", 500)",
+                "pd.set_option(\"display.max_columns\", 100)",
+                "",
                 "GUARDED = (\"=\", \"+\", \"-\", \"@\", \"\\t\", \"\\r\")",
                 "",
                 "",
@@ -182,7 +186,7 @@ public final class NotebookWriter {
                 "        if column in text:",
                 "            frame[column] = frame[column].map(unguard)",
                 "        else:",
-                "            frame[column] = pd.to_numeric(frame[column].replace(\"\", float(\"nan\")))",
+                "            frame[column] = frame[column].replace(\"\", \"nan\").astype(float)",
                 "    return frame.set_index(frame.columns[0])",
                 "",
                 "",
@@ -389,7 +393,7 @@ public final class NotebookWriter {
         }
         labels.append('}');
         List<String> src = List.of(
-                "# " + oneLine(t.title()),
+                "# table: " + t.name(),
                 var + " = load(" + Text.python(PackLayout.table(t.name())) + ", text=" + pyList(text) + ")",
                 "show(" + var + ", " + formats + ", " + labels + ")");
         ObjectNode result = output("execute_result");
@@ -398,10 +402,6 @@ public final class NotebookWriter {
         data.put("text/plain", plain(t));
         result.putObject("metadata");
         code("table-" + t.name(), src, List.of(result));
-    }
-
-    private static String oneLine(String s) {
-        return s.replaceAll("[\\r\\n]+", " ");
     }
 
     private static String pyList(List<String> xs) {
@@ -484,7 +484,7 @@ public final class NotebookWriter {
 
     private void charts(PackContent.ChartKind kind) {
         for (PackContent.Chart c : content.charts(kind)) {
-            List<String> src = List.of("# " + oneLine(c.title()),
+            List<String> src = List.of("# chart: " + c.name(),
                     "display(Image(filename=" + Text.python(PackLayout.chart(c.name(), "png")) + "))");
             ObjectNode out = output("display_data");
             ObjectNode data = out.putObject("data");

@@ -50,7 +50,7 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
         trades = trades == null ? Optional.empty() : trades;
         stress = List.copyOf(stress);
         java.util.Set<String> names = new java.util.HashSet<>();
-        for (Table t : tables()) {
+        for (Table t : tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades)) {
             if (!names.add(t.name())) {
                 throw new IllegalArgumentException("two tables are named " + t.name());
             }
@@ -65,10 +65,16 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
 
     /** Every table of the pack, in notebook order; each is also written as CSV next to the notebook. */
     public List<Table> tables() {
+        return tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades);
+    }
+
+    private static List<Table> tablesOf(Assumptions assumptions, List<Portfolio> portfolios, Table weights,
+                                        Optional<Table> frontier, Table risk, Table constraints, List<Table> stress,
+                                        Optional<Table> trades) {
         List<Table> all = new java.util.ArrayList<>();
         all.add(assumptions.table());
         all.add(assumptions.correlation());
-        all.add(summary());
+        all.add(summary(portfolios));
         all.add(weights);
         frontier.ifPresent(all::add);
         all.add(risk);
@@ -80,6 +86,10 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
 
     /** The portfolios as a table: label, expected return, volatility, method, certificate. */
     public Table summary() {
+        return summary(portfolios);
+    }
+
+    private static Table summary(List<Portfolio> portfolios) {
         Table.Builder b = Table.builder("portfolios", "Portfolios")
                 .column(Table.Column.text("portfolio", "Portfolio"))
                 .column(Table.Column.text("role", "Role"))
@@ -196,8 +206,10 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
      * @param caption a sentence under it (what to read from it)
      * @param png     the PNG bytes (copied)
      * @param svg     the same chart as SVG text
+     * @param pdf     the same chart as PDF bytes, for the folder (empty when not made; copied)
      */
-    public record Chart(String name, ChartKind kind, String title, String caption, byte[] png, String svg) {
+    public record Chart(String name, ChartKind kind, String title, String caption, byte[] png, String svg,
+                        byte[] pdf) {
         public Chart {
             if (name == null || !name.matches("[a-z0-9][a-z0-9_-]{0,40}")) {
                 throw new IllegalArgumentException("chart name must be a short lower-case file stem: " + name);
@@ -207,6 +219,12 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
             caption = caption == null ? "" : caption;
             png = png.clone();
             Objects.requireNonNull(svg, "svg");
+            pdf = pdf == null ? new byte[0] : pdf.clone();
+        }
+
+        @Override
+        public byte[] pdf() {
+            return pdf.clone();
         }
 
         @Override

@@ -36,8 +36,11 @@ public final class Text {
      * Makes text from an input safe to place inside a line of Markdown, so that it reads literally: characters
      * that start emphasis, code, links, tables, maths (Jupyter renders {@code $…$} as LaTeX) or raw HTML are
      * backslash-escaped or written as HTML entities, characters that start a block (heading, list, quote) are
-     * escaped at the start, and line breaks become spaces. CommonMark allows a backslash before any ASCII
-     * punctuation (CommonMark spec 0.30, section 2.4), which is what makes this safe.
+     * escaped at the start, text that would become a link by itself ({@code http://}, {@code www.}, e-mail
+     * addresses) is broken up with entities, and line breaks become spaces. Only the backslash escapes that
+     * both CommonMark (spec 0.30, section 2.4) and the Markdown renderer of Debian's nbconvert honour are used;
+     * there a {@code \\:} or {@code \\^} would show its backslash. {@code \\$} keeps Jupyter's MathJax (set to
+     * process escapes) from reading a name as LaTeX.
      */
     public static String markdown(String s) {
         String flat = s.replace("\r\n", " ").replace('\r', ' ').replace('\n', ' ');
@@ -48,15 +51,27 @@ public final class Text {
                 case '&' -> b.append("&amp;");
                 case '<' -> b.append("&lt;");
                 case '>' -> b.append("&gt;");
-                case '\\', '`', '*', '_', '[', ']', '|', '~', '$', '{', '}', '!', '^' -> b.append('\\').append(c);
-                case '#', '+', '-', '=' -> {
+                // e-mail autolinks (GFM extension); entities are decoded only after parsing
+                case '@' -> b.append("&#64;");
+                case '\\', '`', '*', '_', '[', ']', '|', '~', '$', '{', '}', '!' -> b.append('\\').append(c);
+                case '#', '+', '-' -> {
                     if (i == 0) {
                         b.append('\\');
                     }
                     b.append(c);
                 }
-                case '.', ')' -> {
-                    // "1." or "1)" at the start would open an ordered list
+                case ':' -> b.append(flat.startsWith("//", i + 1) ? "&#58;" : ":"); // URL autolinks
+                case '.' -> {
+                    // "1." at the start would open an ordered list; "www." would become a link
+                    if (allDigits(flat, i)) {
+                        b.append("\\.");
+                    } else if (i >= 3 && flat.regionMatches(true, i - 3, "www", 0, 3)) {
+                        b.append("&#46;");
+                    } else {
+                        b.append('.');
+                    }
+                }
+                case ')' -> {
                     if (allDigits(flat, i)) {
                         b.append('\\');
                     }
@@ -82,7 +97,7 @@ public final class Text {
 
     /**
      * A Python 3 string literal for {@code s}, in double quotes, with backslashes, quotes and control characters
-     * escaped and every non-ASCII character written as a {@code \\uXXXX} escape (so the source stays ASCII).
+     * escaped and every non-ASCII character written as a {@code \\uXXXX} or {@code \\UXXXXXXXX} escape (so the source stays ASCII).
      */
     public static String python(String s) {
         StringBuilder b = new StringBuilder(s.length() + 2).append('"');
@@ -96,6 +111,10 @@ public final class Text {
                 b.append("\\r");
             } else if (c == '\t') {
                 b.append("\\t");
+            } else if (Character.isHighSurrogate(c) && i + 1 < s.length() && Character.isLowSurrogate(s.charAt(i + 1))) {
+                // Python reads "\ud83d\ude00" as two lone surrogates: write the code point whole
+                b.append(String.format(Locale.ROOT, "\\U%08x", s.codePointAt(i)));
+                i++;
             } else if (c < 0x20 || c > 0x7e) {
                 b.append(String.format(Locale.ROOT, "\\u%04x", (int) c));
             } else {
