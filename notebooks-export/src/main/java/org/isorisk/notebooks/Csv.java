@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.io.Writer;
 import java.util.List;
+import org.isorisk.engine.explain.Caution;
 
 /**
  * Writes a {@link Table} as CSV (RFC 4180: comma separated, CRLF-free {@code \n} line ends, fields quoted when
@@ -22,9 +23,16 @@ public final class Csv {
     private Csv() {
     }
 
-    /** Writes header and rows; numbers at full precision ({@link Double#toString}), NaN as an empty field. */
+    /**
+     * Writes two comment lines ({@code # caution: …}, {@code # table: …}: the caution travels with every
+     * exported table), the header and the rows; numbers at full precision ({@link Double#toString}), NaN as an
+     * empty field. Readers skip the comment lines: pandas with {@code comment="#"} (so every text field holding a
+     * {@code #} is quoted), isorisk's own CSV reader by its {@code # key: value} convention.
+     */
     public static void write(Table t, Writer out) {
         try {
+            out.write("# caution: " + Caution.TEXT + "\n");
+            out.write("# table: " + t.title().replaceAll("[\\r\\n]+", " ") + "\n");
             List<Table.Column> cols = t.columns();
             for (int c = 0; c < cols.size(); c++) {
                 if (c > 0) {
@@ -83,7 +91,7 @@ public final class Csv {
     }
 
     private static String field(String s) {
-        boolean quote = s.indexOf(',') >= 0 || s.indexOf('"') >= 0 || s.indexOf('\n') >= 0 || s.indexOf('\r') >= 0
+        boolean quote = s.indexOf(',') >= 0 || s.indexOf('#') >= 0 || s.indexOf('"') >= 0 || s.indexOf('\n') >= 0 || s.indexOf('\r') >= 0
                 || (!s.isEmpty() && (Character.isWhitespace(s.charAt(0)) || Character.isWhitespace(s.charAt(s.length() - 1))));
         return quote ? '"' + s.replace("\"", "\"\"") + '"' : s;
     }

@@ -181,7 +181,7 @@ public final class NotebookWriter {
                 "",
                 "def load(path, text=()):",
                 "    \"\"\"Reads a pack table: the listed columns as text, the others as numbers; the first is the index.\"\"\"",
-                "    frame = pd.read_csv(path, dtype=str, keep_default_na=False)",
+                "    frame = pd.read_csv(path, dtype=str, keep_default_na=False, comment=\"#\")",
                 "    for column in frame.columns:",
                 "        if column in text:",
                 "            frame[column] = frame[column].map(unguard)",

@@ -24,10 +24,15 @@ class CsvTests {
         return b.build();
     }
 
+    private static final String HEAD = "# caution: " + org.isorisk.engine.explain.Caution.TEXT + "\n# table: T\n";
+
+    /** The CSV text after the two comment lines (checked separately). */
     private static String csv(Table t) {
         StringWriter w = new StringWriter();
         Csv.write(t, w);
-        return w.toString();
+        String s = w.toString();
+        assertEquals(HEAD, s.substring(0, HEAD.length()), "every table carries the caution");
+        return s.substring(HEAD.length());
     }
 
     @Test
@@ -65,6 +70,11 @@ class CsvTests {
     }
 
     @Test
+    void textWithAHashIsQuotedSoCommentAwareReadersKeepIt() {
+        assertEquals("asset,weight\n\"# Heading\",0.1\n\"a#b\",0.2\n", csv(table(List.of("# Heading", "a#b"), 0.1, 0.2)));
+    }
+
+    @Test
     void numbersAreWrittenAtFullPrecision() {
         String out = csv(table(List.of("A"), 0.1 + 0.2));
         assertEquals("asset,weight\nA,0.30000000000000004\n", out);
@@ -74,8 +84,10 @@ class CsvTests {
     void theNotebooksLoaderReadsGuardedTablesBackAsTheyWereGiven(@TempDir Path dir) throws IOException {
         // Outside reference: pandas (Debian python3-pandas) reading the CSV through the notebook's own helper code.
         ExternalTools.assumeModules("python3-pandas", "pandas");
-        List<String> names = Fixtures.HOSTILE;
-        Table t = table(names, -0.05, 0.0, 1e-17, 0.1 + 0.2, Double.NaN);
+        List<String> names = new java.util.ArrayList<>(Fixtures.HOSTILE);
+        names.add("# not a comment");
+        names.add("a#b");
+        Table t = table(names, -0.05, 0.0, 1e-17, 0.1 + 0.2, Double.NaN, 1.0, 2.0);
         Path file = dir.resolve("t.csv");
         try (var w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
             Csv.write(t, w);
@@ -92,7 +104,7 @@ class CsvTests {
         ExternalTools.Run r = ExternalTools.run(dir, 120, ExternalTools.PYTHON, "-c", script);
         assertEquals(0, r.exit(), r.err());
         JsonNode back = new ObjectMapper().readTree(r.out());
-        double[] expected = {-0.05, 0.0, 1e-17, 0.1 + 0.2, Double.NaN};
+        double[] expected = {-0.05, 0.0, 1e-17, 0.1 + 0.2, Double.NaN, 1.0, 2.0};
         for (int i = 0; i < names.size(); i++) {
             assertEquals(names.get(i), back.get(i).get(0).asText());
             if (Double.isNaN(expected[i])) {
