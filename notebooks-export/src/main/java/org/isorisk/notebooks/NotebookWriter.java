@@ -15,7 +15,6 @@ import java.util.Base64;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import org.isorisk.engine.explain.Explain;
@@ -82,6 +81,7 @@ public final class NotebookWriter {
         }
         content.trades().ifPresent(this::trades);
         runRecord();
+        workingNote();
         markdown("closing-caution", "---", "", "**Caution.** " + Text.markdown(h.caution()));
 
         ObjectNode nb = JSON.objectNode();
@@ -154,61 +154,19 @@ public final class NotebookWriter {
     }
 
     private void setup() {
-        markdown("setup-note", "## Working with this notebook", "",
-                "The tables and charts below are stored in the notebook, so it reads as it is. The code cells reload "
-                        + "the CSV files in `" + PackLayout.TABLES + "/` and the images in `" + PackLayout.CHARTS
-                        + "/` next to the notebook, so an analyst can run it (Python 3 with pandas) and continue "
-                        + "from there. Numbers in the CSV files are decimals at full precision (0.065 is 6.50 %).");
         code("setup", List.of(
-                "# Helpers to reload the pack's tables. Text cells that a spreadsheet would run as a formula were",
-                "# written with one leading apostrophe; unguard() removes it again.",
-                "import pandas as pd",
-                "from IPython.display import Image, display",
-                "",
-                "pd.set_option(\"display.max_colwidth\", None)",
-                "pd.set_option(\"display.max_rows\", 500)",
-                "pd.set_option(\"display.max_columns\", 100)",
-                "",
-                "GUARDED = (\"=\", \"+\", \"-\", \"@\", \"\\t\", \"\\r\")",
-                "",
-                "",
-                "def unguard(text):",
-                "    \"\"\"Undoes the CSV formula guard of one text cell.\"\"\"",
-                "    if text.startswith(\"'\") and text[1:].lstrip(\"'\")[:1] in GUARDED:",
-                "        return text[1:]",
-                "    return text",
-                "",
-                "",
-                "def load(path, text=()):",
-                "    \"\"\"Reads a pack table: the listed columns as text, the others as numbers; the first is the index.\"\"\"",
-                "    frame = pd.read_csv(path, dtype=str, keep_default_na=False, comment=\"#\")",
-                "    for column in frame.columns:",
-                "        if column in text:",
-                "            frame[column] = frame[column].map(unguard)",
-                "        else:",
-                "            frame[column] = frame[column].replace(\"\", \"nan\").astype(float)",
-                "    return frame.set_index(frame.columns[0])",
-                "",
-                "",
-                "def _unsigned_zero(text):",
-                "    return text[1:] if text.startswith(\"-\") and not any(d in text for d in \"123456789\") else text",
-                "",
-                "",
-                "FORMATS = {",
-                "    \"percent\": lambda v: _unsigned_zero(f\"{v * 100:.2f}\") + \" %\",",
-                "    \"decimal\": lambda v: _unsigned_zero(f\"{v:.2f}\"),",
-                "    \"number\": lambda v: f\"{v:.6g}\",",
-                "    \"amount\": lambda v: _unsigned_zero(f\"{v:,.0f}\"),",
-                "}",
-                "",
-                "",
-                "def show(frame, formats, labels):",
-                "    \"\"\"A copy of a table for reading: numbers formatted as in the pack, headings as labels.\"\"\"",
-                "    shown = frame.copy()",
-                "    for column, kind in formats.items():",
-                "        shown[column] = shown[column].map(lambda v, f=FORMATS[kind]: \"\" if pd.isna(v) else f(v))",
-                "    shown.index.name = labels.get(shown.index.name, shown.index.name)",
-                "    return shown.rename(columns=labels)"), List.of());
+                "# Reloads the pack's tables (tables/*.csv) and charts with pandas; see " + PackLayout.HELPER + ".",
+                "from pack_tables import chart, load, show"), List.of());
+    }
+
+    private void workingNote() {
+        markdown("working-note", "## Working with this notebook", "",
+                "The tables and charts are stored in the notebook, so it reads as it is. Its short code cells reload "
+                        + "them from the CSV files in `" + PackLayout.TABLES + "/` and the images in `"
+                        + PackLayout.CHARTS + "/` with `" + PackLayout.HELPER + "` (next to the notebook), so an "
+                        + "analyst can run it with Python 3 and pandas and continue from there: `load(\"weights\")` "
+                        + "returns a table as a pandas DataFrame, `show(frame)` formats it as shown here. The CSV "
+                        + "files hold decimals at full precision (0.065 is 6.50 %) and open in any spreadsheet.");
     }
 
     private void assumptions() {
@@ -372,47 +330,13 @@ public final class NotebookWriter {
 
     private void table(Table t) {
         String var = t.name().replace('-', '_');
-        List<String> text = t.keys(Table.Format.TEXT);
-        StringBuilder formats = new StringBuilder("{");
-        for (Table.Column c : t.columns()) {
-            if (c.format() != Table.Format.TEXT) {
-                if (formats.length() > 1) {
-                    formats.append(", ");
-                }
-                formats.append(Text.python(c.key())).append(": ")
-                        .append(Text.python(c.format().name().toLowerCase(Locale.ROOT)));
-            }
-        }
-        formats.append('}');
-        StringBuilder labels = new StringBuilder("{");
-        for (Table.Column c : t.columns()) {
-            if (labels.length() > 1) {
-                labels.append(", ");
-            }
-            labels.append(Text.python(c.key())).append(": ").append(Text.python(c.label()));
-        }
-        labels.append('}');
-        List<String> src = List.of(
-                "# table: " + t.name(),
-                var + " = load(" + Text.python(PackLayout.table(t.name())) + ", text=" + pyList(text) + ")",
-                "show(" + var + ", " + formats + ", " + labels + ")");
+        List<String> src = List.of(var + " = load(" + Text.python(t.name()) + ")", "show(" + var + ")");
         ObjectNode result = output("execute_result");
         ObjectNode data = result.putObject("data");
         data.put("text/html", html(t));
         data.put("text/plain", plain(t));
         result.putObject("metadata");
         code("table-" + t.name(), src, List.of(result));
-    }
-
-    private static String pyList(List<String> xs) {
-        StringBuilder b = new StringBuilder("[");
-        for (String x : xs) {
-            if (b.length() > 1) {
-                b.append(", ");
-            }
-            b.append(Text.python(x));
-        }
-        return b.append(']').toString();
     }
 
     /** The table as pandas shows a DataFrame with a named index: headings, then the index name row. */
@@ -484,8 +408,7 @@ public final class NotebookWriter {
 
     private void charts(PackContent.ChartKind kind) {
         for (PackContent.Chart c : content.charts(kind)) {
-            List<String> src = List.of("# chart: " + c.name(),
-                    "display(Image(filename=" + Text.python(PackLayout.chart(c.name(), "png")) + "))");
+            List<String> src = List.of("chart(" + Text.python(c.name()) + ")");
             ObjectNode out = output("display_data");
             ObjectNode data = out.putObject("data");
             data.put("image/png", Base64.getEncoder().encodeToString(c.png()));

@@ -15,6 +15,10 @@ public final class PackLayout {
     public static final String MANIFEST = "manifest.json";
     /** Folder of the CSV tables. */
     public static final String TABLES = "tables";
+    /** The Python module next to the notebook that reloads the tables ({@code load}, {@code show}, {@code chart}). */
+    public static final String HELPER = "pack_tables.py";
+    /** The description of every table (columns, headings, formats) that the helper module reads. */
+    public static final String SCHEMA = "tables/schema.json";
     /** Folder of the chart files. */
     public static final String CHARTS = "charts";
 

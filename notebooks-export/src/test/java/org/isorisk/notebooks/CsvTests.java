@@ -88,18 +88,17 @@ class CsvTests {
         names.add("# not a comment");
         names.add("a#b");
         Table t = table(names, -0.05, 0.0, 1e-17, 0.1 + 0.2, Double.NaN, 1.0, 2.0);
-        Path file = dir.resolve("t.csv");
-        try (var w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
+        Files.createDirectories(dir.resolve(PackLayout.TABLES));
+        try (var w = Files.newBufferedWriter(dir.resolve(PackLayout.table("t")), StandardCharsets.UTF_8)) {
             Csv.write(t, w);
         }
-        JsonNode nb = NotebookWriter.build(Fixtures.content(Fixtures.PLAIN));
-        StringBuilder setup = new StringBuilder();
-        for (JsonNode cell : nb.get("cells")) {
-            if (cell.get("id").asText().equals("setup")) {
-                cell.get("source").forEach(l -> setup.append(l.asText()));
-            }
+        try (var out = Files.newOutputStream(dir.resolve(PackLayout.SCHEMA))) {
+            TableSchema.write(List.of(t), out);
         }
-        String script = setup + "\nimport json, math\nframe = load('t.csv', text=['asset'])\n"
+        try (var out = Files.newOutputStream(dir.resolve(PackLayout.HELPER))) {
+            TableSchema.writeHelper(out);
+        }
+        String script = "import json, math\nfrom pack_tables import load\nframe = load('t')\n"
                 + "print(json.dumps([[k, None if math.isnan(v) else v] for k, v in frame['weight'].items()]))\n";
         ExternalTools.Run r = ExternalTools.run(dir, 120, ExternalTools.PYTHON, "-c", script);
         assertEquals(0, r.exit(), r.err());

@@ -8,15 +8,21 @@ import org.isorisk.notebooks.NotebookWriter;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.PackLayout;
 import org.isorisk.notebooks.Table;
+import org.isorisk.notebooks.TableSchema;
 
 /** Adds the files of a {@link PackContent} to a {@link PackFolder}: the notebook, every table, every chart. */
 public final class PackFiles {
     private PackFiles() {
     }
 
-    /** Adds the notebook, the CSV tables and the chart files (PNG, SVG and, when made, PDF). */
+    /**
+     * Adds the notebook, its Python helper and table schema, the CSV tables and the chart files (PNG, SVG and,
+     * when made, PDF).
+     */
     public static PackFolder addTo(PackFolder folder, PackContent content) {
         folder.add(PackLayout.NOTEBOOK, out -> NotebookWriter.write(content, out));
+        folder.add(PackLayout.HELPER, TableSchema::writeHelper);
+        folder.add(PackLayout.SCHEMA, out -> TableSchema.write(content.tables(), out));
         for (Table t : content.tables()) {
             folder.add(PackLayout.table(t.name()), out -> {
                 Writer w = new OutputStreamWriter(out, StandardCharsets.UTF_8);
