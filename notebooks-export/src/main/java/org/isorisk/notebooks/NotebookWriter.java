@@ -24,7 +24,7 @@ import org.isorisk.engine.explain.Explain;
  * tree). Markdown cells carry the words; code cells reload the CSV tables and chart files that sit next to the
  * notebook ({@link PackLayout}) with pandas and IPython, and carry the outputs that running them produces
  * (tables as {@code text/html} and {@code text/plain}, charts as {@code image/png} with {@code image/svg+xml}
- * alongside), so the notebook reads correctly without being run and an analyst can continue in it.
+ * alongside, plus an HTML {@code <img>} of the PNG that every renderer shows first), so the notebook reads correctly without being run and an analyst can continue in it.
  *
  * <p>All text in the content is plain text from inputs and is escaped here: {@link Text#markdown} in Markdown
  * cells, {@link Text#html} in HTML outputs, {@link Text#python} in code.
@@ -411,7 +411,12 @@ public final class NotebookWriter {
             List<String> src = List.of("chart(" + Text.python(c.name()) + ")");
             ObjectNode out = output("display_data");
             ObjectNode data = out.putObject("data");
-            data.put("image/png", Base64.getEncoder().encodeToString(c.png()));
+            String png = Base64.getEncoder().encodeToString(c.png());
+            // Renderers prefer text/html to images; Debian's nbconvert 6.5 would otherwise pick the SVG and strip
+            // its drawing (lxml's clean_html removes SVG elements), leaving a blank chart in the HTML.
+            data.put("text/html", "<img src=\"data:image/png;base64," + png + "\" alt=\"" + Text.html(c.title())
+                    + "\" style=\"max-width: 100%;\"/>");
+            data.put("image/png", png);
             data.put("image/svg+xml", c.svg());
             data.put("text/plain", c.title());
             out.putObject("metadata");

@@ -186,7 +186,12 @@ class NotebookWriterTests {
         Path html = ExternalTools.html(folder.resolve(PackLayout.NOTEBOOK), dir.resolve("html"));
         String page = Files.readString(html, StandardCharsets.UTF_8);
         assertTrue(page.contains(Text.html(Caution.TEXT)) || page.contains(Caution.TEXT), "caution in the page");
-        assertTrue(page.contains("data:image/png;base64,") || page.contains("<circle"), "chart images in the page");
+        PackContent c = Fixtures.content(Fixtures.HOSTILE);
+        for (PackContent.Chart chart : c.charts()) {
+            String img = "<img src=\"data:image/png;base64," + java.util.Base64.getEncoder().encodeToString(chart.png())
+                    + "\" alt=\"" + Text.html(chart.title()) + "\"";
+            assertTrue(page.contains(img), "chart " + chart.name() + " shown as its PNG");
+        }
         assertTrue(page.contains("&lt;script&gt;alert("), "a hostile name reads as text");
         assertFalse(page.contains("<script>alert("), "and never runs");
         assertFalse(page.contains("href=\"http://example.invalid\""), "a name never becomes a link");
