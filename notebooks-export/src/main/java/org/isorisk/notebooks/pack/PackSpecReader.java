@@ -34,6 +34,9 @@ public final class PackSpecReader {
     private PackSpecReader() {
     }
 
+    /** Targets closer than this would share a label (percentages are shown with two decimals). */
+    static final double MIN_TARGET_GAP = 0.0001 - 1e-12;
+
     private static final Set<String> TOP = Set.of("fund", "as_of", "assumptions_note", "targets", "proposed",
             "risk_free", "frontier", "charts", "chart_formats", "fund_size", "scenarios");
 
@@ -88,6 +91,10 @@ public final class PackSpecReader {
             double v = ctx.decimal(t, "targets", -1, 1);
             if (!targets.isEmpty() && v <= targets.get(targets.size() - 1)) {
                 throw ctx.error(t, "targets", "targets must increase").value(v).fix("list the targets from low to high, each once").build();
+            }
+            if (!targets.isEmpty() && v - targets.get(targets.size() - 1) < MIN_TARGET_GAP) {
+                throw ctx.error(t, "targets", "targets closer than 0.01 % would read the same in the pack").value(v)
+                        .fix("keep the targets at least 0.0001 apart").build();
             }
             targets.add(v);
         }

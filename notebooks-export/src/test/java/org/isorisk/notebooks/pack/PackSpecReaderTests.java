@@ -82,6 +82,7 @@ class PackSpecReaderTests {
     @Test
     void targetsMustIncreaseAndTheProposalMustBeOneOfThem() {
         assertTrue(error(GOOD.replace("[0.045, 0.055, 0.065]", "[0.055, 0.045]")).contains("targets must increase"));
+        assertTrue(error(GOOD.replace("[0.045, 0.055, 0.065]", "[0.055, 0.05505]")).contains("would read the same"));
         String m = error(GOOD.replace("proposed: 0.055", "proposed: 0.05"));
         assertTrue(m.contains("row 7, column 'proposed': the proposed target is not one of the targets"), m);
     }
