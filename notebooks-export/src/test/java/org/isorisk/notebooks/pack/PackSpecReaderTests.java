@@ -54,6 +54,15 @@ class PackSpecReaderTests {
     }
 
     @Test
+    void theSampleFundsPackFileReads() {
+        PackSpec s = PackSpecReader.read(java.nio.file.Path.of("..", "sample-data", "pack.yaml"));
+        assertEquals("Fernhollow Regional Pension Scheme", s.fund());
+        assertEquals(LocalDate.of(2025, 6, 30), s.asOf());
+        assertTrue(s.note().contains("Invented"), "the sample fund is labelled invented");
+        assertTrue(s.targets().contains(s.proposed()));
+    }
+
+    @Test
     void theProposalDefaultsToTheMiddleTargetAndChartsToTheFourStandardOnes() {
         PackSpec s = read("fund: {name: F, currency: EUR}\nas_of: 2025-01-31\ntargets: [0.03, 0.04, 0.05, 0.06]\n");
         assertEquals(0.04, s.proposed());
