@@ -143,6 +143,31 @@ class PackFolderTests {
     }
 
     @Test
+    void anInterruptedRunLeavesNothingBehind(@TempDir Path dir) throws Exception {
+        // The child JVM hangs while writing; SIGTERM (what a kill sends; Ctrl-C's SIGINT runs the same
+        // shutdown hooks) must leave neither the target nor the temporary sibling.
+        Path target = dir.resolve("pack");
+        String javaBin = Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        Process p = new ProcessBuilder(javaBin, "-cp", System.getProperty("java.class.path"),
+                SlowPackMain.class.getName(), target.toString()).redirectErrorStream(true).start();
+        long deadline = System.nanoTime() + 30_000_000_000L;
+        Path temp = null;
+        while (temp == null && System.nanoTime() < deadline) {
+            try (Stream<Path> s = Files.list(dir)) {
+                temp = s.filter(q -> q.getFileName().toString().startsWith(".pack.tmp-"))
+                        .filter(q -> Files.exists(q.resolve("second.txt"))).findFirst().orElse(null);
+            }
+            Thread.sleep(50);
+        }
+        assertTrue(temp != null, "the child started writing");
+        p.destroy();
+        assertTrue(p.waitFor(30, java.util.concurrent.TimeUnit.SECONDS), "the child stopped");
+        try (Stream<Path> s = Files.list(dir)) {
+            assertEquals(List.of(), s.toList(), "no target and no temporary folder remain");
+        }
+    }
+
+    @Test
     void aFailureWhileReplacingKeepsTheEarlierPack(@TempDir Path dir) throws IOException {
         Path in = input(dir);
         Path target = dir.resolve("pack");
