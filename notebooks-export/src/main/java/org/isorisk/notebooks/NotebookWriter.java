@@ -80,6 +80,7 @@ public final class NotebookWriter {
             stress();
         }
         content.trades().ifPresent(this::trades);
+        appendix();
         runRecord();
         workingNote();
         markdown("closing-caution", "---", "", "**Caution.** " + Text.markdown(h.caution()));
@@ -181,9 +182,10 @@ public final class NotebookWriter {
         lines.add("- **Condition number of the covariance matrix:** " + Text.markdown(Text.general(a.conditionNumber(), 4))
                 + " (the ratio of its largest to smallest eigenvalue; the larger it is, the more the portfolios react "
                 + "to small changes in the assumptions).");
+        lines.add("");
+        lines.add("The full correlation matrix is in the appendix.");
         markdown("assumptions", lines);
         table(a.table());
-        table(a.correlation());
     }
 
     private static String pair(PackContent.Pair p) {
@@ -229,7 +231,9 @@ public final class NotebookWriter {
                 "The least volatility the mandate allows for each expected return. Points on the curve are "
                         + "efficient: no portfolio under the same mandate has more expected return for the same risk.");
         charts(PackContent.ChartKind.FRONTIER);
-        content.frontier().ifPresent(this::table);
+        if (content.frontier().isPresent()) {
+            markdown("frontier-note", "The sampled frontier points are tabled in the appendix.");
+        }
     }
 
     private void risk() {
@@ -268,7 +272,18 @@ public final class NotebookWriter {
                 lines.add("- " + Text.markdown(b.sentence()));
             }
         }
+        lines.add("");
+        lines.add("The shadow prices themselves are tabled in the appendix.");
         markdown("binding", lines);
+    }
+
+    private void appendix() {
+        markdown("appendix", "## Appendix: detailed tables", "",
+                "For the analyst: the correlation matrix of the assumptions, the sampled efficient frontier, and "
+                        + "every binding constraint's shadow price, both as the change in minimum variance "
+                        + "(∂V\\*/∂limit) and in volatility (∂σ\\*/∂limit) per unit of the limit.");
+        table(content.assumptions().correlation());
+        content.frontier().ifPresent(this::table);
         table(content.constraints());
     }
 

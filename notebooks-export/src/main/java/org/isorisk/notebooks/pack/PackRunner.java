@@ -39,6 +39,9 @@ public final class PackRunner {
     private PackRunner() {
     }
 
+    /** Up to this many assets the correlation matrix's columns carry the names; beyond, numbers. */
+    static final int NAMED_CORRELATION_COLUMNS = 6;
+
     /**
      * One pack run.
      *
@@ -187,17 +190,25 @@ public final class PackRunner {
         }
         Correlations corr = Correlations.of(u);
         List<String> keys = columnKeys(assets);
+        // Many assets: columns headed by number (the "No." column says which), so the matrix fits a page.
+        boolean numbered = n > NAMED_CORRELATION_COLUMNS;
         Table.Builder ct = Table.builder("correlation", "Correlations").column(Table.Column.text("asset", "Asset"));
+        if (numbered) {
+            ct.column(Table.Column.text("no", "No."));
+        }
         for (int j = 0; j < n; j++) {
-            ct.column(Table.Column.decimal(keys.get(j), assets.get(j)));
+            ct.column(Table.Column.decimal(keys.get(j), numbered ? Integer.toString(j + 1) : assets.get(j)));
         }
         for (int i = 0; i < n; i++) {
-            Object[] row = new Object[n + 1];
-            row[0] = assets.get(i);
-            for (int j = 0; j < n; j++) {
-                row[j + 1] = corr.get(i, j);
+            List<Object> row = new ArrayList<>();
+            row.add(assets.get(i));
+            if (numbered) {
+                row.add(Integer.toString(i + 1));
             }
-            ct.row(row);
+            for (int j = 0; j < n; j++) {
+                row.add(corr.get(i, j));
+            }
+            ct.row(row.toArray());
         }
         String estimator = !spec.assumptionsNote().isBlank() ? spec.assumptionsNote()
                 : !r.estimator().isBlank() ? r.estimator() : "Expected returns and covariance as given in the input tables.";
@@ -229,8 +240,7 @@ public final class PackRunner {
                 .column(Table.Column.text("portfolio", "Portfolio"))
                 .column(Table.Column.text("constraint", "Constraint"))
                 .column(Table.Column.number("variance_per_unit", "∂V*/∂limit"))
-                .column(Table.Column.number("volatility_per_unit", "∂σ*/∂limit"))
-                .column(Table.Column.text("reading", "Reading"));
+                .column(Table.Column.number("volatility_per_unit", "∂σ*/∂limit"));
         Set<String> runNotes = new LinkedHashSet<>(notes);
         for (int k = 0; k < sols.size(); k++) {
             Solution s = sols.get(k);
@@ -241,7 +251,7 @@ public final class PackRunner {
                 String sentence = Explain.sentence(m);
                 binding.add(new PackContent.Binding(labels.get(k), m.constraint(), m.variancePerUnit(),
                         m.volatilityPerUnit(), sentence));
-                cons.row(labels.get(k), m.constraint(), m.variancePerUnit(), m.volatilityPerUnit(), sentence);
+                cons.row(labels.get(k), m.constraint(), m.variancePerUnit(), m.volatilityPerUnit());
             }
             runNotes.addAll(s.notes());
             if (!c.passes()) {
