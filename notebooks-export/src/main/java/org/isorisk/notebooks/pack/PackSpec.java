@@ -62,6 +62,27 @@ public record PackSpec(String fund, String currency, String note, LocalDate asOf
         scenarios = scenarios == null ? Optional.empty() : scenarios;
     }
 
+    /** The pack file's values as JSON, for the manifest's parameters (decimals as numbers, dates as text). */
+    public com.fasterxml.jackson.databind.node.ObjectNode toJson() {
+        com.fasterxml.jackson.databind.node.ObjectNode o = com.fasterxml.jackson.databind.node.JsonNodeFactory.instance
+                .objectNode();
+        o.put("fund", fund);
+        o.put("currency", currency);
+        o.put("as_of", asOf.toString());
+        com.fasterxml.jackson.databind.node.ArrayNode t = o.putArray("targets");
+        targets.forEach(t::add);
+        o.put("proposed", proposed);
+        riskFree.ifPresent(r -> o.put("risk_free", r));
+        o.put("frontier_points", frontierPoints);
+        com.fasterxml.jackson.databind.node.ArrayNode c = o.putArray("charts");
+        charts.forEach(x -> c.add(x.key()));
+        com.fasterxml.jackson.databind.node.ArrayNode f = o.putArray("chart_formats");
+        chartFormats.forEach(x -> f.add(x.extension()));
+        fundSize.ifPresent(x -> o.put("fund_size", x));
+        scenarios.ifPresent(x -> o.put("scenarios", x));
+        return o;
+    }
+
     /** A chart the pack can draw, by its name in the pack file. */
     public enum ChartChoice {
         FRONTIER("frontier"), WEIGHTS("weights"), MARGINAL_RISK("marginal-risk"),
