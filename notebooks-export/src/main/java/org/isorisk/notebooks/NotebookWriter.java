@@ -223,7 +223,8 @@ public final class NotebookWriter {
     }
 
     private void frontier() {
-        List<PackContent.Chart> charts = content.charts(PackContent.ChartKind.FRONTIER);
+        List<PackContent.Chart> charts = new ArrayList<>(content.charts(PackContent.ChartKind.FRONTIER));
+        charts.addAll(content.charts(PackContent.ChartKind.MARGINAL_RISK));
         if (charts.isEmpty() && content.frontier().isEmpty()) {
             return;
         }
@@ -231,6 +232,7 @@ public final class NotebookWriter {
                 "The least volatility the mandate allows for each expected return. Points on the curve are "
                         + "efficient: no portfolio under the same mandate has more expected return for the same risk.");
         charts(PackContent.ChartKind.FRONTIER);
+        charts(PackContent.ChartKind.MARGINAL_RISK);
         if (content.frontier().isPresent()) {
             markdown("frontier-note", "The sampled frontier points are tabled in the appendix.");
         }
@@ -243,7 +245,6 @@ public final class NotebookWriter {
                         + "contributions add up to the portfolio's volatility (Euler's theorem for functions "
                         + "homogeneous of degree one).");
         table(content.risk());
-        charts(PackContent.ChartKind.MARGINAL_RISK);
         charts(PackContent.ChartKind.RISK_CONTRIBUTION);
     }
 

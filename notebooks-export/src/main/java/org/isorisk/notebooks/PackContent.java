@@ -192,7 +192,11 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
                           String sentence) {
     }
 
-    /** Where a chart goes in the notebook. */
+    /**
+     * Where a chart goes in the notebook: the frontier and the marginal risk of the return target (∂σ*∂m along
+     * the frontier) in the frontier section, weights with the portfolios, risk contributions with the risk of
+     * the proposal, stress with the stress tables.
+     */
     public enum ChartKind {
         FRONTIER, WEIGHTS, MARGINAL_RISK, RISK_CONTRIBUTION, STRESS
     }

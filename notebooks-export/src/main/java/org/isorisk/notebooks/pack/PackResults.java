@@ -3,6 +3,7 @@ package org.isorisk.notebooks.pack;
 import java.util.List;
 import java.util.Optional;
 import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Solution;
 
@@ -16,18 +17,17 @@ import org.isorisk.engine.model.Solution;
  * @param targets       one portfolio per target of {@code spec.targets()}, in order
  * @param proposal      the proposed portfolio (one of {@code targets})
  * @param tangency      the tangency portfolio for {@code spec.riskFree()}, when it exists
- * @param frontier      portfolios sampled along the efficient frontier, increasing in expected return
+ * @param frontier      the efficient frontier under the mandate, sampled increasing in expected return
  * @param marginal      marginal risk {@code (Σw)_i/σ} of the proposal, per asset
  * @param contribution  risk contribution {@code w_i (Σw)_i/σ} of the proposal, per asset
  * @param holdings      current weights, when given
  */
 public record PackResults(PackSpec spec, AssetUniverse universe, Mandate mandate, Solution minimum,
                           List<Solution> targets, Solution proposal, Optional<Solution> tangency,
-                          List<Solution> frontier, double[] marginal, double[] contribution,
+                          Frontier frontier, double[] marginal, double[] contribution,
                           Optional<double[]> holdings) {
     public PackResults {
         targets = List.copyOf(targets);
-        frontier = List.copyOf(frontier);
         marginal = marginal.clone();
         contribution = contribution.clone();
         holdings = holdings == null ? Optional.empty() : holdings.map(double[]::clone);

@@ -19,7 +19,9 @@ import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Certificate;
+import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.MertonScalars;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
@@ -113,7 +115,7 @@ public final class PackRunner {
                 notes.add("No tangency portfolio: " + e.getMessage());
             }
         }
-        List<Solution> frontier = frontier(base, minimum, targets, spec.frontierPoints());
+        Frontier frontier = frontier(base, minimum, targets, spec.frontierPoints());
         double[][] risk = decompose(u, proposal.weights());
         PackResults results = new PackResults(spec, u, r.mandate(), minimum, targets, proposal, tangency, frontier,
                 risk[0], risk[1], r.holdings());
@@ -125,11 +127,12 @@ public final class PackRunner {
     }
 
     /**
-     * Portfolios along the efficient frontier: {@code points} targets evenly spaced from the minimum-variance
-     * portfolio's return to a quarter beyond the highest target, each solved under the mandate; targets the
-     * mandate cannot reach are left out.
+     * The efficient frontier: {@code points} targets evenly spaced from the minimum-variance portfolio's return to
+     * a quarter beyond the highest target, each solved under the mandate; targets the mandate cannot reach are
+     * left out. This is the one place to switch to the engine's exact frontier (corner portfolios by the critical
+     * line method) where it applies.
      */
-    private static List<Solution> frontier(AllocationRequest base, Solution minimum, List<Solution> targets, int points) {
+    private static Frontier frontier(AllocationRequest base, Solution minimum, List<Solution> targets, int points) {
         double lo = minimum.expectedReturn();
         double top = targets.get(targets.size() - 1).expectedReturn();
         double hi = top + 0.25 * Math.max(top - lo, 0.0);
@@ -144,7 +147,16 @@ public final class PackRunner {
                 }
             }
         }
-        return out;
+        MertonScalars unconstrained;
+        try {
+            unconstrained = Allocator.merton(base.universe(), base.mandate().budget());
+        } catch (RuntimeException e) {
+            unconstrained = null; // e.g. every expected return equal: no closed-form frontier to compare with
+        }
+        // Without bounds the return is unbounded; with bounds the highest return solved stands in until the
+        // engine's return range is used here.
+        double max = base.mandate().hasBounds() ? out.get(out.size() - 1).expectedReturn() : Double.POSITIVE_INFINITY;
+        return new Frontier(List.of(), out, unconstrained, lo, max);
     }
 
     /** Marginal risk {@code (Σw)_i/σ} and contribution {@code w_i(Σw)_i/σ} (Euler: they sum to σ). */
@@ -274,14 +286,14 @@ public final class PackRunner {
         }
 
         Optional<Table> frontier = Optional.empty();
-        if (!res.frontier().isEmpty()) {
+        if (!res.frontier().points().isEmpty()) {
             Table.Builder ft = Table.builder("frontier", "Efficient frontier (sampled)")
                     .column(Table.Column.text("point", "Point"))
                     .column(Table.Column.percent("expected_return", "Expected return"))
                     .column(Table.Column.percent("volatility", "Volatility"));
             spec.riskFree().ifPresent(rf -> ft.column(Table.Column.decimal("sharpe_ratio", "Sharpe ratio")));
             int k = 1;
-            for (Solution s : res.frontier()) {
+            for (Solution s : res.frontier().points()) {
                 if (spec.riskFree().isPresent()) {
                     double rf = spec.riskFree().get();
                     ft.row(Integer.toString(k++), s.expectedReturn(), s.volatility(),

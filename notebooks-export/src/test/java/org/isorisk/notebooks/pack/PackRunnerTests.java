@@ -115,7 +115,7 @@ class PackRunnerTests {
     @Test
     void theFrontierRunsFromTheMinimumVarianceReturnUpwardWithIncreasingRisk() {
         PackRunner.Outcome o = run(spec(""), Optional.empty());
-        List<Solution> f = o.results().frontier();
+        List<Solution> f = o.results().frontier().points();
         assertEquals(6, f.size());
         assertEquals(o.results().minimum().expectedReturn(), f.get(0).expectedReturn());
         for (int k = 1; k < f.size(); k++) {
