@@ -26,6 +26,8 @@ import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.risk.Correlations;
+import org.isorisk.engine.risk.RiskAnalysis;
+import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.Table;
@@ -116,9 +118,9 @@ public final class PackRunner {
             }
         }
         Frontier frontier = frontier(base, minimum, targets, spec.frontierPoints());
-        double[][] risk = decompose(u, proposal.weights());
+        RiskDecomposition risk = RiskAnalysis.decompose(u, proposal.weights());
         PackResults results = new PackResults(spec, u, r.mandate(), minimum, targets, proposal, tangency, frontier,
-                risk[0], risk[1], r.holdings());
+                risk.marginal(), risk.component(), r.holdings());
         List<PackContent.Chart> charts = r.charts().draw(results);
         if (charts.isEmpty() && !spec.charts().isEmpty()) {
             notes.add("Charts were asked for but this build draws none.");
@@ -157,29 +159,6 @@ public final class PackRunner {
         // engine's return range is used here.
         double max = base.mandate().hasBounds() ? out.get(out.size() - 1).expectedReturn() : Double.POSITIVE_INFINITY;
         return new Frontier(List.of(), out, unconstrained, lo, max);
-    }
-
-    /** Marginal risk {@code (Σw)_i/σ} and contribution {@code w_i(Σw)_i/σ} (Euler: they sum to σ). */
-    private static double[][] decompose(AssetUniverse u, double[] w) {
-        int n = w.length;
-        double[] sw = new double[n];
-        double var = 0;
-        for (int i = 0; i < n; i++) {
-            double s = 0;
-            for (int j = 0; j < n; j++) {
-                s += u.covariance(i, j) * w[j];
-            }
-            sw[i] = s;
-            var += w[i] * s;
-        }
-        double vol = Math.sqrt(Math.max(var, 0));
-        double[] marginal = new double[n];
-        double[] component = new double[n];
-        for (int i = 0; i < n; i++) {
-            marginal[i] = vol > 0 ? sw[i] / vol : Double.NaN;
-            component[i] = vol > 0 ? w[i] * marginal[i] : Double.NaN;
-        }
-        return new double[][]{marginal, component};
     }
 
     // ------------------------------------------------------------------ layout
