@@ -173,7 +173,8 @@ public final class PackFolder {
             guard.publish(force);
             return new Result(abs, written, inputHashes);
         } catch (IOException e) {
-            throw new UncheckedIOException("writing the pack under " + parent + " failed: " + e.getMessage(), e);
+            throw InputException.of("the pack folder cannot be written: " + e.getMessage()).file(target.toString())
+                    .fix("check that the folder is writable and has space, or choose another --out").build();
         } finally {
             guard.cleanUp();
             try {
@@ -257,7 +258,7 @@ public final class PackFolder {
         for (Input in : inputs) {
             ObjectNode o = ins.addObject();
             o.put("role", in.role());
-            o.put("path", in.path().toString());
+            o.put("name", in.path().getFileName().toString()); // the name alone: outputs carry no machine paths
             o.put("sha256", inputHashes.get(in.role()));
         }
         ArrayNode outs = m.putArray("files");

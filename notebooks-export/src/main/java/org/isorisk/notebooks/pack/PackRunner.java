@@ -58,12 +58,13 @@ public final class PackRunner {
      * @param created     when the pack is made
      * @param parameters  the run's parameters as given on the command line
      * @param inputs      the input files with their SHA-256
+     * @param notes       remarks from reading the inputs (warnings), for the run record
      * @param charts      draws the charts
      */
     public record Request(AssetUniverse universe, Mandate mandate, PackSpec spec, Optional<double[]> holdings,
                           String estimator, String toolVersion, OffsetDateTime created,
                           List<PackContent.Parameter> parameters, List<PackContent.InputFile> inputs,
-                          ChartMaker charts) {
+                          List<String> notes, ChartMaker charts) {
         public Request {
             Objects.requireNonNull(universe, "universe");
             Objects.requireNonNull(mandate, "mandate");
@@ -74,6 +75,7 @@ public final class PackRunner {
             Objects.requireNonNull(created, "created");
             parameters = List.copyOf(parameters);
             inputs = List.copyOf(inputs);
+            notes = List.copyOf(notes);
             Objects.requireNonNull(charts, "charts");
         }
     }
@@ -108,7 +110,7 @@ public final class PackRunner {
                 proposal = s;
             }
         }
-        List<String> notes = new ArrayList<>();
+        List<String> notes = new ArrayList<>(r.notes());
         Optional<Solution> tangency = Optional.empty();
         if (spec.riskFree().isPresent()) {
             try {

@@ -62,6 +62,12 @@ public record PackSpec(String fund, String currency, String note, LocalDate asOf
         scenarios = scenarios == null ? Optional.empty() : scenarios;
     }
 
+    /** The same pack with the fund size set (e.g. the total market value of the holdings). */
+    public PackSpec withFundSize(double size) {
+        return new PackSpec(fund, currency, note, asOf, assumptionsNote, targets, proposed, riskFree, frontierPoints,
+                charts, chartFormats, Optional.of(size), scenarios);
+    }
+
     /** The pack file's values as JSON, for the manifest's parameters (decimals as numbers, dates as text). */
     public com.fasterxml.jackson.databind.node.ObjectNode toJson() {
         com.fasterxml.jackson.databind.node.ObjectNode o = com.fasterxml.jackson.databind.node.JsonNodeFactory.instance
