@@ -206,7 +206,7 @@ public final class PackFolder {
         }
         if (!isEarlierPack(abs)) {
             throw InputException.of("the folder is not an earlier isorisk pack (it has no isorisk " + PackLayout.MANIFEST
-                            + "), so --force will not replace it").file(given.toString())
+                            + "), so it is not replaced").file(given.toString())
                     .fix("choose a new or empty --out folder").build();
         }
     }
