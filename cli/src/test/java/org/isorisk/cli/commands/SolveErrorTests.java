@@ -106,10 +106,11 @@ class SolveErrorTests {
 
     @Test
     void equalExpectedReturnsFailTheConstraintQualification() {
-        String msg = "the constraint qualification fails: constraint 'target_return' depends on budget: every asset "
-                + "has the same expected return, so the return target's gradient μ is parallel to the budget's gradient "
-                + "1 and adds no direction of its own; its multiplier is not unique and the target is either met by "
-                + "every portfolio or by none; fix: drop 'target_return' or one of the constraints it repeats";
+        String msg = "the constraint qualification fails: constraint 'target_return' depends on 'budget': every "
+                + "asset has the same expected return (5.00 %), so the return target's gradient μ is parallel to the "
+                + "budget's gradient 1 and adds no direction of its own; every portfolio within the budget returns "
+                + "5.00 %, so the target 5.00 % is met by all of them and its multiplier is not unique; fix: drop "
+                + "'target_return' or one of the constraints it depends on";
         fails(solve("asset,expected_return\nA,0.05\nB,0.05\n", COV, "--target-return", "0.05"), 3, msg);
         Run j = solve("asset,expected_return\nA,0.05\nB,0.05\n", COV, "--target-return", "0.05", "--format", "json");
         assertEquals(3, j.code());
