@@ -25,6 +25,7 @@ import picocli.CommandLine.Option;
  * caution on the terminal.
  */
 @Command(name = "demo", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Make the committee pack of the invented sample fund.",
         description = {"Make the committee pack of the invented sample fund (a fictional pension scheme, illustrative "
                 + "numbers, not market data), as 'isorisk pack' would: notebook, charts, CSV tables, copies of the "
                 + "inputs and manifest.json, in one folder written atomically."})

@@ -40,6 +40,7 @@ import picocli.CommandLine.Option;
  * the analysis is {@link PackRunner}'s, the folder {@link PackFolder}'s.
  */
 @Command(name = "pack", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Write a fund's investment committee pack (notebook, charts, tables, manifest) into one folder.",
         description = {"Write the investment committee pack of a fund into one folder: a Jupyter notebook with the "
                 + "assumptions, the mandate in words, the minimum-variance and proposed portfolios, the frontier, the "
                 + "risk of the proposal, every binding constraint with its shadow price, the trades and a run record; "
