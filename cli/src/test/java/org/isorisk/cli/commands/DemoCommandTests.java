@@ -54,8 +54,8 @@ class DemoCommandTests {
         Files.writeString(mine.resolve("notes.txt"), "keep");
         Run r = Run.of("demo", "--out", mine.toString());
         assertEquals(2, r.code());
-        assertEquals("isorisk: error: " + mine + ": the folder is not an earlier isorisk pack (it has no isorisk "
-                + "manifest.json), so it is not replaced; fix: choose a new or empty --out folder\n", r.err());
+        assertEquals("isorisk: error: " + mine + ": the output folder exists and was not written by isorisk, so it is "
+                + "left alone; fix: choose another --out, or empty the folder\n", r.err());
         assertEquals("", r.out());
         assertEquals("keep", Files.readString(mine.resolve("notes.txt")));
     }

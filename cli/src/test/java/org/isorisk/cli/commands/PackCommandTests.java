@@ -84,11 +84,18 @@ class PackCommandTests {
         List<String> before = listing(dir);
         Run r = Run.of(args(out));
         assertEquals(2, r.code());
-        assertEquals("isorisk: error: " + out + ": the pack folder exists and is not empty; fix: choose another --out, "
-                + "or add --force to replace the earlier pack\n", r.err());
+        assertEquals("isorisk: error: " + out + ": the output folder exists and is not empty; fix: choose another --out, "
+                + "or add --force to replace the earlier output\n", r.err());
         assertEquals("", r.out());
         assertEquals(before, listing(dir), "nothing changed, nothing added beside it");
         assertEquals(0, Run.of(args(out, "--force")).code(), "with --force the earlier pack is replaced");
+        Path mine = Files.createDirectory(dir.resolve("mine"));
+        Files.writeString(mine.resolve("notes.txt"), "keep");
+        Run foreign = Run.of(args(mine, "--force"));
+        assertEquals(2, foreign.code());
+        assertEquals("isorisk: error: " + mine + ": the output folder exists and was not written by isorisk, so it is "
+                + "left alone; fix: choose another --out, or empty the folder\n", foreign.err());
+        assertEquals("keep", Files.readString(mine.resolve("notes.txt")));
     }
 
     @Test

@@ -9,47 +9,36 @@ import java.io.BufferedOutputStream;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.OutputStream;
-import java.io.UncheckedIOException;
-import java.nio.file.AtomicMoveNotSupportedException;
-import java.nio.file.DirectoryStream;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
-import java.nio.file.LinkOption;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
 import java.security.DigestOutputStream;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.time.OffsetDateTime;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
-import java.util.UUID;
 import java.util.regex.Pattern;
-import java.util.stream.Stream;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.explain.Caution;
+import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.notebooks.PackLayout;
 
 /**
- * The one place that chooses paths and moves folders for a pack. Files are added as writers of bytes under
- * a relative name; {@link #commit} writes them into a temporary sibling of the target folder, adds
- * {@code manifest.json} (tool, version, date, parameters, and the SHA-256 of every input and output file), and
- * renames the temporary folder onto the target in one atomic step. So the target either does not change or
- * appears complete: an exception or an interrupt (Ctrl-C runs a shutdown hook that removes the temporary
- * folder) leaves nothing half-written, and inputs are only ever read.
+ * A pack folder: its files are added as writers of bytes under relative names; {@link #commit} writes them
+ * through {@link AtomicWrite#folder(Path, boolean, AtomicWrite.FolderBody)} (the project's one place for atomic
+ * folder moves: a temporary sibling renamed into place, a shutdown hook for Ctrl-C) and adds
+ * {@code manifest.json}: tool, version, date, parameters, and the SHA-256 of every input and of every file of
+ * the folder, hashed as it is written. So the target either does not change or appears complete, and inputs are
+ * only ever read.
  *
  * <p>Rules for an existing target: an empty folder is replaced; a non-empty one only with {@code force}, and
- * then only when it is an earlier pack (it holds a {@code manifest.json} written by isorisk), so that a typo in
+ * then only when it is an earlier isorisk output (it holds {@link AtomicWrite#MARKER}), so that a typo in
  * {@code --out} cannot delete an unrelated folder; a target that contains one of the inputs is refused.
- * With {@code force}, the old pack is first renamed aside, the new one renamed into place, and the old one
- * deleted; if the process dies between the two renames, the old pack is left as a hidden sibling
- * ({@code .NAME.old-…}), never a half-written one.
  */
 public final class PackFolder {
 
@@ -142,93 +131,29 @@ public final class PackFolder {
      */
     public Result commit(Path target, boolean force) {
         Path abs = target.toAbsolutePath().normalize();
-        Path parent = abs.getParent();
-        if (parent == null || abs.getFileName() == null) {
+        if (abs.getParent() == null || abs.getFileName() == null) {
             throw InputException.of("the pack cannot be the root folder").file(target.toString())
                     .fix("give --out a folder name such as committee-pack").build();
-        }
-        if (!Files.isDirectory(parent)) {
-            throw InputException.of("the folder that should hold the pack does not exist").file(parent.toString())
-                    .fix("create it first or choose another --out").build();
-        }
-        checkTarget(target, abs, force);
-        Map<String, String> inputHashes = inputHashes();
-
-        String name = abs.getFileName().toString();
-        String tag = UUID.randomUUID().toString().substring(0, 8);
-        Path temp = parent.resolve("." + name + ".tmp-" + tag);
-        Path aside = parent.resolve("." + name + ".old-" + tag);
-        Guard guard = new Guard(temp, aside, abs);
-        Thread hook = new Thread(guard::interrupted, "isorisk-pack-cleanup");
-        Runtime.getRuntime().addShutdownHook(hook);
-        try {
-            Files.createDirectory(temp);
-            List<Written> written = new ArrayList<>();
-            for (Map.Entry<String, Content> e : files.entrySet()) {
-                guard.check();
-                written.add(writeOne(temp, e.getKey(), e.getValue()));
-            }
-            guard.check();
-            written.add(writeOne(temp, PackLayout.MANIFEST, out -> manifest(out, inputHashes, written)));
-            guard.publish(force);
-            return new Result(abs, written, inputHashes);
-        } catch (IOException e) {
-            throw InputException.of("the pack folder cannot be written: " + e.getMessage()).file(target.toString())
-                    .fix("check that the folder is writable and has space, or choose another --out").build();
-        } finally {
-            guard.cleanUp();
-            try {
-                Runtime.getRuntime().removeShutdownHook(hook);
-            } catch (IllegalStateException shuttingDown) {
-                // the hook is running or has run; it has cleaned up
-            }
-        }
-    }
-
-    private void checkTarget(Path given, Path abs, boolean force) {
-        if (Files.exists(abs, LinkOption.NOFOLLOW_LINKS) && !Files.isDirectory(abs, LinkOption.NOFOLLOW_LINKS)) {
-            throw InputException.of("the pack folder exists and is not a folder").file(given.toString())
-                    .fix("choose another --out").build();
         }
         for (Input in : inputs) {
             Path p = in.path().toAbsolutePath().normalize();
             if (p.startsWith(abs)) {
-                throw InputException.of("the pack folder contains an input (" + in.role() + ")").file(given.toString())
+                throw InputException.of("the pack folder contains an input (" + in.role() + ")").file(target.toString())
                         .value(in.path()).fix("choose an --out folder that holds none of the inputs").build();
             }
         }
-        if (!Files.isDirectory(abs) || isEmpty(abs)) {
-            return;
-        }
-        if (!force) {
-            throw InputException.of("the pack folder exists and is not empty").file(given.toString())
-                    .fix("choose another --out, or add --force to replace the earlier pack").build();
-        }
-        if (!isEarlierPack(abs)) {
-            throw InputException.of("the folder is not an earlier isorisk pack (it has no isorisk " + PackLayout.MANIFEST
-                            + "), so it is not replaced").file(given.toString())
-                    .fix("choose a new or empty --out folder").build();
-        }
-    }
-
-    private static boolean isEmpty(Path dir) {
-        try (DirectoryStream<Path> s = Files.newDirectoryStream(dir)) {
-            return !s.iterator().hasNext();
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
-    }
-
-    private static boolean isEarlierPack(Path dir) {
-        Path m = dir.resolve(PackLayout.MANIFEST);
-        if (!Files.isRegularFile(m)) {
-            return false;
-        }
-        try {
-            return "isorisk".equals(new ObjectMapper().readTree(m.toFile()).path("tool").asText());
-        } catch (IOException e) {
-            return false;
-        }
+        Map<String, String> inputHashes = inputHashes();
+        List<Written> written = new ArrayList<>();
+        AtomicWrite.folder(target, force, staging -> {
+            // the marker that makes this folder an isorisk output (AtomicWrite writes it) is listed too
+            Path marker = staging.resolve(AtomicWrite.MARKER);
+            written.add(new Written(AtomicWrite.MARKER, Files.size(marker), sha256(marker)));
+            for (Map.Entry<String, Content> e : files.entrySet()) {
+                written.add(writeOne(staging, e.getKey(), e.getValue()));
+            }
+            written.add(writeOne(staging, PackLayout.MANIFEST, out -> manifest(out, inputHashes, written)));
+        });
+        return new Result(abs, written, inputHashes);
     }
 
     private static Written writeOne(Path root, String relative, Content content) throws IOException {
@@ -295,98 +220,6 @@ public final class PackFolder {
             return MessageDigest.getInstance("SHA-256");
         } catch (NoSuchAlgorithmException e) {
             throw new IllegalStateException("every Java platform has SHA-256", e);
-        }
-    }
-
-    static void deleteTree(Path p) {
-        if (!Files.exists(p, LinkOption.NOFOLLOW_LINKS)) {
-            return;
-        }
-        try (Stream<Path> s = Files.walk(p)) {
-            for (Path q : s.sorted(Comparator.reverseOrder()).toList()) {
-                Files.deleteIfExists(q);
-            }
-        } catch (IOException e) {
-            throw new UncheckedIOException("could not remove " + p + ": " + e.getMessage(), e);
-        }
-    }
-
-    /**
-     * Serialises publishing and interrupt cleanup: the shutdown hook and the rename take the same lock, so
-     * either the pack is published completely or the hook removes the temporary folder and nothing is
-     * published.
-     */
-    private static final class Guard {
-        private final Path temp;
-        private final Path aside;
-        private final Path target;
-        private boolean aborted;
-        private boolean published;
-
-        Guard(Path temp, Path aside, Path target) {
-            this.temp = temp;
-            this.aside = aside;
-            this.target = target;
-        }
-
-        synchronized void check() throws IOException {
-            if (aborted) {
-                throw new IOException("interrupted");
-            }
-        }
-
-        synchronized void publish(boolean force) throws IOException {
-            check();
-            if (Files.isDirectory(target)) {
-                if (isEmpty(target)) {
-                    Files.delete(target);
-                } else if (force) {
-                    move(target, aside);
-                } else {
-                    throw new FileAlreadyExistsException(target.toString(), null, "appeared while the pack was written");
-                }
-            }
-            try {
-                move(temp, target);
-            } catch (IOException e) {
-                if (Files.isDirectory(aside) && !Files.exists(target)) {
-                    move(aside, target);
-                }
-                throw e;
-            }
-            published = true;
-            deleteTree(aside);
-        }
-
-        private static void move(Path from, Path to) throws IOException {
-            try {
-                Files.move(from, to, StandardCopyOption.ATOMIC_MOVE);
-            } catch (AtomicMoveNotSupportedException e) {
-                throw new IOException("the file system cannot rename " + from + " atomically", e);
-            }
-        }
-
-        /** Runs in the shutdown hook on Ctrl-C or exit while the pack is being written. */
-        synchronized void interrupted() {
-            aborted = true;
-            cleanUp();
-            if (!published && Files.isDirectory(aside) && !Files.exists(target)) {
-                try {
-                    Files.move(aside, target, StandardCopyOption.ATOMIC_MOVE);
-                } catch (IOException e) {
-                    // the old pack stays as the hidden sibling; nothing half-written is published
-                }
-            }
-        }
-
-        synchronized void cleanUp() {
-            if (!published) {
-                try {
-                    deleteTree(temp);
-                } catch (UncheckedIOException e) {
-                    // best effort: a temporary sibling is never the target
-                }
-            }
         }
     }
 

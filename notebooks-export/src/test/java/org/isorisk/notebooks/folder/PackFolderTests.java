@@ -83,17 +83,17 @@ class PackFolderTests {
     }
 
     @Test
-    void anExistingNonEmptyFolderIsLeftAloneWithoutForce(@TempDir Path dir) throws IOException {
+    void anEarlierPackIsLeftAloneWithoutForce(@TempDir Path dir) throws IOException {
+        Path in = input(dir);
         Path target = dir.resolve("pack");
-        Files.createDirectories(target);
-        Files.writeString(target.resolve("notes.txt"), "mine");
+        folder(in).commit(target, false);
         List<String> before = listing(dir);
-        InputException e = assertThrows(InputException.class, () -> folder(input(dir)).commit(target, false));
-        assertTrue(e.getMessage().contains("exists and is not empty"), e.getMessage());
-        assertTrue(e.getMessage().contains("--force"), e.getMessage());
-        assertEquals("mine", Files.readString(target.resolve("notes.txt")));
-        List<String> after = listing(dir).stream().filter(p -> !p.startsWith("inputs")).toList();
-        assertEquals(before, after, "nothing added next to it either");
+        String manifest = Files.readString(target.resolve(PackLayout.MANIFEST));
+        InputException e = assertThrows(InputException.class, () -> folder(in).commit(target, false));
+        assertTrue(e.getMessage().contains("the output folder exists and is not empty"), e.getMessage());
+        assertTrue(e.getMessage().contains("add --force"), e.getMessage());
+        assertEquals(manifest, Files.readString(target.resolve(PackLayout.MANIFEST)));
+        assertEquals(before, listing(dir), "nothing changed and nothing added beside it");
     }
 
     @Test
@@ -110,7 +110,7 @@ class PackFolderTests {
         Files.createDirectories(other);
         Files.writeString(other.resolve("precious.txt"), "keep");
         InputException e = assertThrows(InputException.class, () -> folder(in).commit(other, true));
-        assertTrue(e.getMessage().contains("not an earlier isorisk pack"), e.getMessage());
+        assertTrue(e.getMessage().contains("was not written by isorisk, so it is left alone"), e.getMessage());
         assertEquals("keep", Files.readString(other.resolve("precious.txt")));
         try (Stream<Path> s = Files.list(dir)) {
             assertEquals(List.of("inputs", "other", "pack"), s.map(p -> p.getFileName().toString()).sorted().toList(),
