@@ -5,10 +5,12 @@ import java.io.UncheckedIOException;
 import java.io.Writer;
 import java.util.List;
 import org.isorisk.engine.explain.Caution;
+import org.isorisk.engine.io.CsvWriter;
 
 /**
- * Writes a {@link Table} as CSV (RFC 4180: comma separated, CRLF-free {@code \n} line ends, fields quoted when
- * they hold a comma, a quote or a line break) with spreadsheet formula neutralising.
+ * Writes a {@link Table} as CSV through the project's one CSV writer ({@link CsvWriter}: comma separated,
+ * {@code \n} line ends, fields quoted when they hold a comma, a quote, a line break or a {@code #}, numbers at
+ * full precision with a decimal point), adding spreadsheet formula neutralising.
  *
  * <p><b>The neutralising rule.</b> A spreadsheet that opens a CSV file runs a cell as a formula when it starts
  * with {@code =}, {@code +}, {@code -} or {@code @}, and some also after a leading tab or carriage return (OWASP,
@@ -25,47 +27,30 @@ public final class Csv {
 
     /**
      * Writes two comment lines ({@code # caution: …}, {@code # table: …}: the caution travels with every
-     * exported table), the header and the rows; numbers at full precision ({@link Double#toString}), NaN as an
-     * empty field. Readers skip the comment lines: pandas with {@code comment="#"} (so every text field holding a
-     * {@code #} is quoted), isorisk's own CSV reader by its {@code # key: value} convention.
+     * exported table), the header and the rows; NaN as an empty field. Readers skip the comment lines: pandas
+     * with {@code comment="#"}, isorisk's own CSV reader by its {@code # key: value} convention.
      */
     public static void write(Table t, Writer out) {
         try {
-            out.write("# caution: " + Caution.TEXT + "\n");
-            out.write("# table: " + t.title().replaceAll("[\\r\\n]+", " ") + "\n");
+            CsvWriter w = new CsvWriter(out).comment("caution", Caution.TEXT).comment("table", t.title());
             List<Table.Column> cols = t.columns();
+            Object[] header = new Object[cols.size()];
             for (int c = 0; c < cols.size(); c++) {
-                if (c > 0) {
-                    out.write(',');
-                }
-                out.write(field(neutralise(cols.get(c).key())));
+                header[c] = neutralise(cols.get(c).key());
             }
-            out.write('\n');
+            w.row(header);
             for (List<Table.Cell> row : t.rows()) {
+                Object[] cells = new Object[row.size()];
                 for (int c = 0; c < row.size(); c++) {
-                    if (c > 0) {
-                        out.write(',');
-                    }
-                    out.write(cell(row.get(c)));
+                    cells[c] = row.get(c) instanceof Table.Cell.Text x ? neutralise(x.value())
+                            : (Object) ((Table.Cell.Number) row.get(c)).value();
                 }
-                out.write('\n');
+                w.row(cells);
             }
             out.flush();
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         }
-    }
-
-    /** The CSV field of one cell: text neutralised and quoted as needed, numbers plain. */
-    public static String cell(Table.Cell cell) {
-        if (cell instanceof Table.Cell.Text t) {
-            return field(neutralise(t.value()));
-        }
-        double v = ((Table.Cell.Number) cell).value();
-        if (Double.isNaN(v)) {
-            return "";
-        }
-        return Double.toString(v);
     }
 
     /** Applies the neutralising rule to one text cell (see the class comment). */
@@ -88,11 +73,5 @@ public final class Csv {
         }
         char c = s.charAt(i);
         return c == '=' || c == '+' || c == '-' || c == '@' || c == '\t' || c == '\r';
-    }
-
-    private static String field(String s) {
-        boolean quote = s.indexOf(',') >= 0 || s.indexOf('#') >= 0 || s.indexOf('"') >= 0 || s.indexOf('\n') >= 0 || s.indexOf('\r') >= 0
-                || (!s.isEmpty() && (Character.isWhitespace(s.charAt(0)) || Character.isWhitespace(s.charAt(s.length() - 1))));
-        return quote ? '"' + s.replace("\"", "\"\"") + '"' : s;
     }
 }
