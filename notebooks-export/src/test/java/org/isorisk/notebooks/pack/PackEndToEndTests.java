@@ -8,6 +8,8 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.time.OffsetDateTime;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Optional;
 import org.isorisk.notebooks.ExternalTools;
 import org.isorisk.notebooks.PackLayout;
@@ -28,23 +30,22 @@ class PackEndToEndTests {
     }
 
     @Test
-    void theRunnersNotebookValidatesAndRuns(@TempDir Path dir) throws IOException {
+    void theRunnersNotebookValidatesStrictlyAndCarriesEveryTable(@TempDir Path dir) throws IOException {
         Path folder = pack(dir);
         Path nb = folder.resolve(PackLayout.NOTEBOOK);
         ExternalTools.Run v = ExternalTools.validate(nb);
         assertEquals(0, v.exit(), v.both());
-        // nbconvert's rendering is checked on the hostile-named fixture (NotebookWriterTests); here the
-        // runner's own tables must reload and run.
-        Path executed = ExternalTools.execute(nb, dir.resolve("executed.ipynb"));
-        JsonNode after = new ObjectMapper().readTree(executed.toFile());
-        int tables = 0;
-        for (JsonNode cell : after.get("cells")) {
-            for (JsonNode out : cell.path("outputs")) {
-                assertTrue(!out.get("output_type").asText().equals("error"), cell.get("id").asText());
+        // Rendering and running are checked on the hostile-named fixture (NotebookWriterTests), which goes
+        // through the same writer; here: the runner's notebook carries every table it should.
+        JsonNode nbJson = new ObjectMapper().readTree(nb.toFile());
+        List<String> tables = new ArrayList<>();
+        for (JsonNode cell : nbJson.get("cells")) {
+            if (cell.get("id").asText().startsWith("table-")) {
+                tables.add(cell.get("id").asText().substring(6));
             }
-            tables += cell.get("id").asText().startsWith("table-") ? 1 : 0;
         }
-        assertEquals(8, tables, "assumptions, portfolios, weights, risk, trades, correlation, frontier, constraints");
+        assertEquals(List.of("assumptions", "portfolios", "weights", "risk", "trades", "correlation", "frontier",
+                "constraints"), tables);
     }
 
     @Test
