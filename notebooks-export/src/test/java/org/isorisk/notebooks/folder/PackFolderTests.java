@@ -178,7 +178,7 @@ class PackFolderTests {
             throw new IOException("disk full (simulated)");
         });
         InputException e = assertThrows(InputException.class, () -> f.commit(target, true));
-        assertTrue(e.getMessage().contains("cannot be written: disk full (simulated)"), e.getMessage());
+        assertTrue(e.getMessage().contains("cannot be written") && e.getMessage().contains("disk full (simulated)"), e.getMessage());
         assertEquals(manifest, Files.readString(target.resolve(PackLayout.MANIFEST)));
     }
 
