@@ -33,7 +33,7 @@ public final class DemoCommand extends BaseCommand {
 
     /** The sample files, bundled in the jar from the repository's {@code sample-data/} folder. */
     public static final List<String> SAMPLE_FILES = List.of("expected_returns.csv", "covariance.csv",
-            "holdings.csv", "pack.yaml", "README.md");
+            "holdings.csv", "policy.yaml", "pack.yaml", "README.md");
 
     private static final List<String> REQUIRED = List.of("expected_returns.csv", "covariance.csv", "holdings.csv");
 
@@ -44,7 +44,8 @@ public final class DemoCommand extends BaseCommand {
 
     @Option(names = "--data", paramLabel = "DIR",
             description = "Run on the scenario in DIR instead (expected_returns.csv, covariance.csv, holdings.csv and "
-                    + "optionally pack.yaml, in the layouts of the README); default: the bundled sample fund.")
+                    + "optionally policy.yaml and pack.yaml, in the layouts of the README); default: the bundled sample "
+                    + "fund.")
     Path data;
 
     @Override
@@ -60,7 +61,8 @@ public final class DemoCommand extends BaseCommand {
             }
             // An earlier pack in --out is the demo's own output and is replaced; PackFolder still refuses
             // any folder that is not an isorisk pack.
-            PackCommand.Made made = PackCommand.make(u, null, dir.resolve("holdings.csv"), dir.resolve("pack.yaml"),
+            Path policy = Files.isRegularFile(dir.resolve("policy.yaml")) ? dir.resolve("policy.yaml") : null;
+            PackCommand.Made made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), dir.resolve("pack.yaml"),
                     Units.DECIMAL, out, true, extra);
             out().print(made.summary());
             out().flush();

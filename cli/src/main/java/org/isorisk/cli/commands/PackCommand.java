@@ -12,11 +12,11 @@ import java.util.Optional;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.IsoriskCommand;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
+import org.isorisk.engine.io.PolicyReader;
 import org.isorisk.engine.io.PortfolioReader;
 import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.io.Units;
@@ -175,8 +175,7 @@ public final class PackCommand extends BaseCommand {
         if (policy == null) {
             return Mandate.fullyInvested(u.assets().size());
         }
-        throw InputException.of("this build cannot read policy files yet").file(policy.toString())
-                .fix("leave out --policy to use the budget alone (short positions allowed)").build();
+        return PolicyReader.read(policy, u.assets()).mandate();
     }
 
     /** A copy of an input under {@code inputs/}, by its file name (prefixed with its role if two names clash). */

@@ -29,6 +29,7 @@ import org.isorisk.engine.risk.Correlations;
 import org.isorisk.engine.risk.RiskAnalysis;
 import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.solve.Allocator;
+import org.isorisk.engine.solve.SolverSession;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.Table;
 
@@ -131,36 +132,63 @@ public final class PackRunner {
     }
 
     /**
-     * The efficient frontier: {@code points} targets evenly spaced from the minimum-variance portfolio's return to
-     * a quarter beyond the highest target, each solved under the mandate; targets the mandate cannot reach are
-     * left out. This is the one place to switch to the engine's exact frontier (corner portfolios by the critical
-     * line method) where it applies.
+     * The efficient frontier with {@code points} portfolios, from the minimum-variance portfolio upward:
+     * <ul>
+     *   <li>budget, bounds and fixed weights only: the engine's exact frontier (critical line method, with its
+     *       corner portfolios), sampled up to the highest return the mandate allows;</li>
+     *   <li>groups or general limits: the numerical solver warm-started along targets up to the highest return
+     *       the mandate allows (the engine's return range, a linear program);</li>
+     *   <li>equalities only (no bounds, so no highest return): the closed form up to a quarter beyond the
+     *       highest target.</li>
+     * </ul>
      */
     private static Frontier frontier(AllocationRequest base, Solution minimum, List<Solution> targets, int points) {
+        AssetUniverse u = base.universe();
+        Mandate m = base.mandate();
+        if (Allocator.criticalLineApplies(m)) {
+            return Allocator.mandateFrontier(u, m, range -> grid(range[1], range[2], points), false, base.settings());
+        }
+        MertonScalars unconstrained;
+        try {
+            unconstrained = Allocator.merton(u, m.budget());
+        } catch (RuntimeException e) {
+            unconstrained = null; // e.g. every expected return equal: no closed-form frontier to compare with
+        }
         double lo = minimum.expectedReturn();
-        double top = targets.get(targets.size() - 1).expectedReturn();
-        double hi = top + 0.25 * Math.max(top - lo, 0.0);
         List<Solution> out = new ArrayList<>();
-        for (int k = 0; k < points; k++) {
-            double m = lo + (hi - lo) * k / (points - 1);
+        out.add(minimum);
+        if (m.equalitiesOnly()) {
+            double top = targets.get(targets.size() - 1).expectedReturn();
+            double[] grid = grid(lo, top + 0.25 * Math.max(top - lo, 0.0), points);
+            for (int k = 1; k < grid.length; k++) {
+                out.add(Allocator.solve(base.withObjective(Objective.targetReturn(grid[k]))));
+            }
+            return new Frontier(List.of(), out, unconstrained, lo, Double.POSITIVE_INFINITY);
+        }
+        SolverSession session = Allocator.session(u, m, base.settings());
+        double hi = session.returnRange().max();
+        double[] grid = grid(lo, hi, points);
+        Solution previous = minimum;
+        for (int k = 1; k < grid.length; k++) {
             try {
-                out.add(k == 0 ? minimum : Allocator.solve(base.withObjective(Objective.targetReturn(m))));
+                previous = session.solve(Objective.targetReturn(grid[k]), previous);
+                out.add(previous);
             } catch (NoSolutionException e) {
                 if (e.reason() != NoSolutionException.Reason.INFEASIBLE) {
                     throw e;
                 }
             }
         }
-        MertonScalars unconstrained;
-        try {
-            unconstrained = Allocator.merton(base.universe(), base.mandate().budget());
-        } catch (RuntimeException e) {
-            unconstrained = null; // e.g. every expected return equal: no closed-form frontier to compare with
+        return new Frontier(List.of(), out, unconstrained, lo, hi);
+    }
+
+    /** {@code n} evenly spaced values from {@code lo} to {@code hi}, both included. */
+    private static double[] grid(double lo, double hi, int n) {
+        double[] g = new double[n];
+        for (int k = 0; k < n; k++) {
+            g[k] = k == n - 1 ? hi : lo + (hi - lo) * k / (n - 1);
         }
-        // Without bounds the return is unbounded; with bounds the highest return solved stands in until the
-        // engine's return range is used here.
-        double max = base.mandate().hasBounds() ? out.get(out.size() - 1).expectedReturn() : Double.POSITIVE_INFINITY;
-        return new Frontier(List.of(), out, unconstrained, lo, max);
+        return g;
     }
 
     // ------------------------------------------------------------------ layout
