@@ -299,8 +299,9 @@ public final class NotebookWriter {
 
     private void trades(Table t) {
         markdown("trades", "## Trades", "",
-                "From the current holdings to the proposal, in " + Text.markdown(content.heading().currency())
-                        + ". Positive amounts are purchases, negative amounts sales.");
+                "What moves the current holdings fully to the proposal, in "
+                        + Text.markdown(content.heading().currency()) + ". Positive amounts are purchases, negative "
+                        + "amounts sales. The run record says whether the policy limits turnover.");
         table(t);
     }
 

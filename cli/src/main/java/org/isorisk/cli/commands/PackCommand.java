@@ -21,6 +21,7 @@ import org.isorisk.engine.io.PortfolioReader;
 import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.io.Units;
 import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.Policy;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.PackLayout;
@@ -104,7 +105,13 @@ public final class PackCommand extends BaseCommand {
                      List<PackFolder.Input> extraInputs) {
         PackSpec spec = PackSpecReader.read(packFile);
         List<String> notes = new ArrayList<>(u.warnings());
-        Mandate mandate = mandate(u, policy);
+        Policy read = policy == null ? null : PolicyReader.read(policy, u.assets());
+        Mandate mandate = read == null ? Mandate.fullyInvested(u.assets().size()) : read.mandate();
+        if (read != null && read.turnoverMax().isPresent() && holdings != null) {
+            notes.add("The policy limits turnover to " + Explain.percent(read.turnoverMax().getAsDouble())
+                    + "; the trade list moves the holdings fully to the proposal and is not limited by it (rebalancing "
+                    + "under the turnover limit and trading costs is a separate step).");
+        }
         Optional<double[]> weights = Optional.empty();
         List<SourceFile> sources = new ArrayList<>(u.provenance().inputs());
         if (holdings != null) {
@@ -168,14 +175,6 @@ public final class PackCommand extends BaseCommand {
         folder.add("summary.txt", os -> os.write(summary.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
         PackFolder.Result r = folder.commit(out, force);
         return new Made(r.folder(), o.content(), r.files().size(), summary);
-    }
-
-    /** The mandate of the policy file; the budget alone without one. The one place policies are read. */
-    static Mandate mandate(LoadedUniverse u, Path policy) {
-        if (policy == null) {
-            return Mandate.fullyInvested(u.assets().size());
-        }
-        return PolicyReader.read(policy, u.assets()).mandate();
     }
 
     /** A copy of an input under {@code inputs/}, by its file name (prefixed with its role if two names clash). */

@@ -78,6 +78,27 @@ class PackCommandTests {
     }
 
     @Test
+    void underThePolicyTheMandateIsInWordsAndItsBindingLimitsHaveSentences() throws IOException {
+        Path out = dir.resolve("pack");
+        Run r = Run.of(args(out, "--policy", Run.SAMPLE.resolve("policy.yaml").toString()));
+        assertEquals(0, r.code(), r.toString());
+        assertTrue(r.out().contains("The policy limits turnover to 20.00 %"), r.out());
+        JsonNode nb = Run.json(out.resolve(PackLayout.NOTEBOOK));
+        StringBuilder text = new StringBuilder();
+        for (JsonNode cell : nb.get("cells")) {
+            cell.get("source").forEach(l -> text.append(l.asText()));
+        }
+        String all = text.toString();
+        assertTrue(all.contains("Group Equity (Domestic Equity, Foreign Developed Equity, Emerging Equity): between "
+                + "30.00 % and 60.00 % in total."), "mandate in words");
+        assertTrue(all.contains("Raising the return target by 0.10 % raises volatility by"), "shadow price sentence");
+        assertTrue(all.contains("Raising the upper limit of ") || all.contains("Raising the lower limit of "),
+                "a bound binds under the policy");
+        JsonNode m = Run.json(out.resolve(PackLayout.MANIFEST));
+        assertEquals("policy.yaml", m.at("/parameters/policy").asText());
+    }
+
+    @Test
     void anExistingNonEmptyFolderWithoutForceExitsTwoAndIsLeftAsItWas() throws IOException {
         Path out = dir.resolve("pack");
         assertEquals(0, Run.of(args(out)).code());
