@@ -92,7 +92,7 @@ public record PackSpec(String fund, String currency, String note, LocalDate asOf
     /** A chart the pack can draw, by its name in the pack file. */
     public enum ChartChoice {
         FRONTIER("frontier"), WEIGHTS("weights"), MARGINAL_RISK("marginal-risk"),
-        RISK_CONTRIBUTION("risk-contribution"), STRESS("stress");
+        RISK_CONTRIBUTION("risk-contributions"), STRESS("stress");
 
         private final String key;
 

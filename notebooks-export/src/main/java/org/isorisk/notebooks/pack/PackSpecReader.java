@@ -123,7 +123,7 @@ public final class PackSpecReader {
             for (Node c : ctx.sequence(top.get("charts"), "charts")) {
                 String key = ctx.text(c, "charts");
                 charts.add(PackSpec.ChartChoice.of(key).orElseThrow(() -> ctx.error(c, "charts", "unknown chart")
-                        .value(key).fix("use frontier, weights, marginal-risk, risk-contribution or stress").build()));
+                        .value(key).fix("use frontier, weights, marginal-risk, risk-contributions or stress").build()));
             }
         } else {
             charts.addAll(EnumSet.of(PackSpec.ChartChoice.FRONTIER, PackSpec.ChartChoice.WEIGHTS,
