@@ -142,9 +142,13 @@ public final class NotebookWriter {
                     + Text.markdown(Explain.percent(first.expectedReturn())) + ", volatility "
                     + Text.markdown(Explain.percent(first.volatility())) + ": the least risk the mandate allows.");
         }
+        content.current().ifPresent(c -> lines.add("- **" + Text.markdown(c.label()) + ":** expected return "
+                + Text.markdown(Explain.percent(c.expectedReturn())) + ", volatility "
+                + Text.markdown(Explain.percent(c.volatility())) + "."));
         long bindingHere = content.binding().stream().filter(b -> b.portfolio().equals(p.label())).count();
         lines.add("- **Binding constraints of the proposal:** " + bindingHere + " (each with its shadow price below).");
         boolean allPass = content.portfolios().stream().allMatch(PackContent.Portfolio::passes);
+        // (the current holdings were given, not solved: they carry no certificate and count as passing)
         lines.add("- **Certificates:** " + (allPass
                 ? "every portfolio satisfies its optimality (KKT) conditions within tolerance."
                 : "**at least one portfolio's KKT certificate is above its tolerance: read the run record.**"));
@@ -257,7 +261,9 @@ public final class NotebookWriter {
                 + "read in volatility for a small step.");
         Map<String, List<PackContent.Binding>> byPortfolio = new LinkedHashMap<>();
         for (PackContent.Portfolio p : content.portfolios()) {
-            byPortfolio.put(p.label(), new ArrayList<>());
+            if (!p.method().equals(PackContent.GIVEN)) {
+                byPortfolio.put(p.label(), new ArrayList<>());
+            }
         }
         for (PackContent.Binding b : content.binding()) {
             byPortfolio.computeIfAbsent(b.portfolio(), k -> new ArrayList<>()).add(b);

@@ -104,6 +104,14 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
         return b.build();
     }
 
+    /** Method label of a portfolio that was given (the current holdings), not solved. */
+    public static final String GIVEN = "given";
+
+    /** The current holdings, when the pack has them. */
+    public Optional<Portfolio> current() {
+        return portfolios.stream().filter(p -> p.method().equals(GIVEN)).findFirst();
+    }
+
     /** The proposed portfolio. */
     public Portfolio proposal() {
         return portfolios.stream().filter(Portfolio::proposed).findFirst().orElseThrow();

@@ -212,6 +212,8 @@ public final class PackCommand extends BaseCommand {
                 binding == 1 ? "" : "s"));
         b.append(String.format(Locale.ROOT, "  Minimum variance: expected return %s, volatility %s%n",
                 Explain.percent(min.expectedReturn()), Explain.percent(min.volatility())));
+        c.current().ifPresent(h -> b.append(String.format(Locale.ROOT, "  Current holdings: expected return %s, "
+                + "volatility %s%n", Explain.percent(h.expectedReturn()), Explain.percent(h.volatility()))));
         boolean pass = c.portfolios().stream().allMatch(PackContent.Portfolio::passes);
         b.append("  Certificates: ").append(pass ? "every portfolio passes its KKT check"
                 : "WARNING: a KKT certificate is above its tolerance (see the run record)").append('\n');

@@ -6,6 +6,7 @@ import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.engine.risk.RiskDecomposition;
 
 /**
  * The engine results of one pack run, before they are laid out: what the charts are drawn from.
@@ -18,29 +19,18 @@ import org.isorisk.engine.model.Solution;
  * @param proposal      the proposed portfolio (one of {@code targets})
  * @param tangency      the tangency portfolio for {@code spec.riskFree()}, when it exists
  * @param frontier      the efficient frontier under the mandate, sampled increasing in expected return
- * @param marginal      marginal risk {@code (Σw)_i/σ} of the proposal, per asset
- * @param contribution  risk contribution {@code w_i (Σw)_i/σ} of the proposal, per asset
+ * @param risk          the proposal's risk decomposition (marginal risk, contributions, shares)
  * @param holdings      current weights, when given
+ * @param currentRisk   the current holdings' risk decomposition, when holdings are given
  */
 public record PackResults(PackSpec spec, AssetUniverse universe, Mandate mandate, Solution minimum,
                           List<Solution> targets, Solution proposal, Optional<Solution> tangency,
-                          Frontier frontier, double[] marginal, double[] contribution,
-                          Optional<double[]> holdings) {
+                          Frontier frontier, RiskDecomposition risk, Optional<double[]> holdings,
+                          Optional<RiskDecomposition> currentRisk) {
     public PackResults {
         targets = List.copyOf(targets);
-        marginal = marginal.clone();
-        contribution = contribution.clone();
         holdings = holdings == null ? Optional.empty() : holdings.map(double[]::clone);
-    }
-
-    @Override
-    public double[] marginal() {
-        return marginal.clone();
-    }
-
-    @Override
-    public double[] contribution() {
-        return contribution.clone();
+        currentRisk = currentRisk == null ? Optional.empty() : currentRisk;
     }
 
     @Override

@@ -44,6 +44,9 @@ public final class PackRunner {
     private PackRunner() {
     }
 
+    /** Label of the current holdings in the pack's tables. */
+    static final String CURRENT = "Current holdings";
+
     /** Up to this many assets the correlation matrix's columns carry the names; beyond, numbers. */
     static final int NAMED_CORRELATION_COLUMNS = 6;
 
@@ -122,8 +125,9 @@ public final class PackRunner {
         }
         Frontier frontier = frontier(base, minimum, targets, spec.frontierPoints());
         RiskDecomposition risk = RiskAnalysis.decompose(u, proposal.weights());
+        Optional<RiskDecomposition> currentRisk = r.holdings().map(h -> RiskAnalysis.decompose(u, h));
         PackResults results = new PackResults(spec, u, r.mandate(), minimum, targets, proposal, tangency, frontier,
-                risk.marginal(), risk.component(), r.holdings());
+                risk, r.holdings(), currentRisk);
         List<PackContent.Chart> charts = r.charts().draw(results);
         if (charts.isEmpty() && !spec.charts().isEmpty()) {
             notes.add("Charts were asked for but this build draws none.");
@@ -281,17 +285,24 @@ public final class PackRunner {
             }
         }
 
+        res.currentRisk().ifPresent(c -> portfolios.add(new PackContent.Portfolio(CURRENT, false, c.expectedReturn(),
+                c.volatility(), PackContent.GIVEN, "given, not optimised", true)));
         Table.Builder wt = Table.builder("weights", "Weights").column(Table.Column.text("asset", "Asset"));
         for (int k = 0; k < sols.size(); k++) {
             wt.column(Table.Column.percent(columns.get(k), labels.get(k)));
         }
+        Optional<double[]> held = res.holdings();
+        held.ifPresent(h -> wt.column(Table.Column.percent("current", CURRENT)));
         for (int i = 0; i < n; i++) {
-            Object[] row = new Object[sols.size() + 1];
-            row[0] = assets.get(i);
-            for (int k = 0; k < sols.size(); k++) {
-                row[k + 1] = sols.get(k).weight(i);
+            List<Object> row = new ArrayList<>();
+            row.add(assets.get(i));
+            for (Solution s : sols) {
+                row.add(s.weight(i));
             }
-            wt.row(row);
+            if (held.isPresent()) {
+                row.add(held.get()[i]);
+            }
+            wt.row(row.toArray());
         }
 
         Optional<Table> frontier = Optional.empty();
@@ -315,8 +326,8 @@ public final class PackRunner {
         }
 
         double[] w = res.proposal().weights();
-        double[] marginal = res.marginal();
-        double[] contribution = res.contribution();
+        double[] marginal = res.risk().marginal();
+        double[] contribution = res.risk().component();
         double vol = res.proposal().volatility();
         Table.Builder rt = Table.builder("risk", "Risk of the proposal")
                 .column(Table.Column.text("asset", "Asset"))

@@ -78,7 +78,7 @@ class PackRunnerTests {
         // Euler's theorem for the degree-one homogeneous σ(w): Σ w_i ∂σ/∂w_i = σ.
         PackRunner.Outcome o = run(spec(""), Optional.empty());
         double sum = 0;
-        for (double c : o.results().contribution()) {
+        for (double c : o.results().risk().component()) {
             sum += c;
         }
         assertEquals(o.results().proposal().volatility(), sum, 1e-15);
@@ -110,6 +110,11 @@ class PackRunnerTests {
             assertEquals((w[i] - current[i]) * 1e6, ((Table.Cell.Number) row.get(4)).value(), 0.0);
         }
         assertEquals("Amount (EUR)", t.columns().get(4).label());
+        PackContent.Portfolio held = o.content().current().orElseThrow();
+        assertEquals(org.isorisk.engine.risk.RiskAnalysis.decompose(universe(), current).volatility(), held.volatility());
+        assertEquals(List.of("Target 5.00 %"), o.content().binding().stream().map(PackContent.Binding::portfolio)
+                .filter(p -> p.equals("Target 5.00 %") || p.equals(held.label())).distinct().toList(),
+                "the holdings were given, so no constraint is reported for them");
     }
 
     @Test
