@@ -10,6 +10,7 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.stream.Stream;
 import org.isorisk.cli.ExitCode;
+import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.UniverseFiles;
@@ -61,7 +62,8 @@ public final class DemoCommand extends BaseCommand {
             }
             // An earlier pack in --out is the demo's own output and is replaced; PackFolder still refuses
             // any folder that is not an isorisk pack.
-            Path policy = Files.isRegularFile(dir.resolve("policy.yaml")) ? dir.resolve("policy.yaml") : null;
+            PolicyOption policy = PolicyOption.of(Files.isRegularFile(dir.resolve("policy.yaml"))
+                    ? dir.resolve("policy.yaml") : null);
             PackCommand.Made made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), dir.resolve("pack.yaml"),
                     Units.DECIMAL, out, true, extra);
             out().print(made.summary());

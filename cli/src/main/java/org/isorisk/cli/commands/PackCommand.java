@@ -12,11 +12,11 @@ import java.util.Optional;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.IsoriskCommand;
 import org.isorisk.cli.options.InputOptions;
+import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
-import org.isorisk.engine.io.PolicyReader;
 import org.isorisk.engine.io.PortfolioReader;
 import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.io.Units;
@@ -55,9 +55,8 @@ public final class PackCommand extends BaseCommand {
     @Mixin
     InputOptions inputs;
 
-    @Option(names = "--policy", paramLabel = "FILE",
-            description = "Mandate policy (YAML). Without it only the budget applies and short positions are allowed.")
-    Path policy;
+    @Mixin
+    PolicyOption policyOption;
 
     @Option(names = "--holdings", paramLabel = "FILE",
             description = "Current holdings: CSV asset,weight or asset,market_value; adds the trade list.")
@@ -79,7 +78,7 @@ public final class PackCommand extends BaseCommand {
     @Override
     protected ExitCode execute() {
         LoadedUniverse u = inputs.load(true, "pack");
-        Made made = make(u, policy, holdings, packFile, inputs.units(), out, force, List.of());
+        Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of());
         out().print(made.summary());
         out().flush();
         return ExitCode.OK;
@@ -101,14 +100,17 @@ public final class PackCommand extends BaseCommand {
      *
      * @param extraInputs further files to record and copy (e.g. the demo's README), as role and path
      */
-    static Made make(LoadedUniverse u, Path policy, Path holdings, Path packFile, Units units, Path out, boolean force,
-                     List<PackFolder.Input> extraInputs) {
+    static Made make(LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile, Units units, Path out,
+                     boolean force, List<PackFolder.Input> extraInputs) {
         PackSpec spec = PackSpecReader.read(packFile);
+        PolicyOption.Loaded loaded = policyOption.load(read);
+        LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
+        Path policy = policyOption.path().orElse(null);
         List<String> notes = new ArrayList<>(u.warnings());
-        Policy read = policy == null ? null : PolicyReader.read(policy, u.assets());
-        Mandate mandate = read == null ? Mandate.fullyInvested(u.assets().size()) : read.mandate();
-        if (read != null && read.turnoverMax().isPresent() && holdings != null) {
-            notes.add("The policy limits turnover to " + Explain.percent(read.turnoverMax().getAsDouble())
+        Mandate mandate = loaded.mandate(java.util.Map.of());
+        Optional<Policy> pol = loaded.policy();
+        if (pol.isPresent() && pol.get().turnoverMax().isPresent() && holdings != null) {
+            notes.add("The policy limits turnover to " + Explain.percent(pol.get().turnoverMax().getAsDouble())
                     + "; the trade list moves the holdings fully to the proposal and is not limited by it (rebalancing "
                     + "under the turnover limit and trading costs is a separate step).");
         }
@@ -136,9 +138,6 @@ public final class PackCommand extends BaseCommand {
             folder.input(s.role(), Path.of(s.path()));
         }
         List<PackFolder.Input> more = new ArrayList<>();
-        if (policy != null) {
-            more.add(new PackFolder.Input("policy", policy));
-        }
         more.add(new PackFolder.Input("pack-file", packFile));
         more.addAll(extraInputs);
         for (PackFolder.Input in : more) {

@@ -15,13 +15,14 @@ import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.explain.MandateWords;
+import org.isorisk.engine.frontier.Frontiers;
+import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Certificate;
 import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
-import org.isorisk.engine.model.MertonScalars;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
@@ -29,7 +30,6 @@ import org.isorisk.engine.risk.Correlations;
 import org.isorisk.engine.risk.RiskAnalysis;
 import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.solve.Allocator;
-import org.isorisk.engine.solve.SolverSession;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.Table;
 
@@ -123,7 +123,7 @@ public final class PackRunner {
                 notes.add("No tangency portfolio: " + e.getMessage());
             }
         }
-        Frontier frontier = frontier(base, minimum, targets, spec.frontierPoints());
+        Frontier frontier = frontier(base, spec.frontierPoints());
         RiskDecomposition risk = RiskAnalysis.decompose(u, proposal.weights());
         Optional<RiskDecomposition> currentRisk = r.holdings().map(h -> RiskAnalysis.decompose(u, h));
         PackResults results = new PackResults(spec, u, r.mandate(), minimum, targets, proposal, tangency, frontier,
@@ -136,63 +136,17 @@ public final class PackRunner {
     }
 
     /**
-     * The efficient frontier with {@code points} portfolios, from the minimum-variance portfolio upward:
-     * <ul>
-     *   <li>budget, bounds and fixed weights only: the engine's exact frontier (critical line method, with its
-     *       corner portfolios), sampled up to the highest return the mandate allows;</li>
-     *   <li>groups or general limits: the numerical solver warm-started along targets up to the highest return
-     *       the mandate allows (the engine's return range, a linear program);</li>
-     *   <li>equalities only (no bounds, so no highest return): the closed form up to a quarter beyond the
-     *       highest target.</li>
-     * </ul>
+     * The efficient frontier with {@code points} portfolios from the minimum-variance end to the highest return
+     * the mandate allows, through the engine's front door for frontiers: exact (critical line method, with its
+     * corner portfolios) where only budget, bounds and fixed weights apply, sampled by the warm-started QP
+     * otherwise.
      */
-    private static Frontier frontier(AllocationRequest base, Solution minimum, List<Solution> targets, int points) {
+    private static Frontier frontier(AllocationRequest base, int points) {
         AssetUniverse u = base.universe();
         Mandate m = base.mandate();
-        if (Allocator.criticalLineApplies(m)) {
-            return Allocator.mandateFrontier(u, m, range -> grid(range[1], range[2], points), false, base.settings());
-        }
-        MertonScalars unconstrained;
-        try {
-            unconstrained = Allocator.merton(u, m.budget());
-        } catch (RuntimeException e) {
-            unconstrained = null; // e.g. every expected return equal: no closed-form frontier to compare with
-        }
-        double lo = minimum.expectedReturn();
-        List<Solution> out = new ArrayList<>();
-        out.add(minimum);
-        if (m.equalitiesOnly()) {
-            double top = targets.get(targets.size() - 1).expectedReturn();
-            double[] grid = grid(lo, top + 0.25 * Math.max(top - lo, 0.0), points);
-            for (int k = 1; k < grid.length; k++) {
-                out.add(Allocator.solve(base.withObjective(Objective.targetReturn(grid[k]))));
-            }
-            return new Frontier(List.of(), out, unconstrained, lo, Double.POSITIVE_INFINITY);
-        }
-        SolverSession session = Allocator.session(u, m, base.settings());
-        double hi = session.returnRange().max();
-        double[] grid = grid(lo, hi, points);
-        Solution previous = minimum;
-        for (int k = 1; k < grid.length; k++) {
-            try {
-                previous = session.solve(Objective.targetReturn(grid[k]), previous);
-                out.add(previous);
-            } catch (NoSolutionException e) {
-                if (e.reason() != NoSolutionException.Reason.INFEASIBLE) {
-                    throw e;
-                }
-            }
-        }
-        return new Frontier(List.of(), out, unconstrained, lo, hi);
-    }
-
-    /** {@code n} evenly spaced values from {@code lo} to {@code hi}, both included. */
-    private static double[] grid(double lo, double hi, int n) {
-        double[] g = new double[n];
-        for (int k = 0; k < n; k++) {
-            g[k] = k == n - 1 ? hi : lo + (hi - lo) * k / (n - 1);
-        }
-        return g;
+        return Allocator.criticalLineApplies(m)
+                ? Frontiers.mandate(u, m, Grid.points(points), base.settings())
+                : Frontiers.sampled(u, m, Grid.points(points), base.settings());
     }
 
     // ------------------------------------------------------------------ layout
