@@ -9,6 +9,7 @@ import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.EstimateCommand;
 import org.isorisk.cli.commands.FrontierCommand;
+import org.isorisk.cli.commands.PackCommand;
 import org.isorisk.cli.commands.RiskCommand;
 import org.isorisk.cli.commands.SolveCommand;
 import org.isorisk.engine.explain.Caution;
@@ -37,6 +38,7 @@ public final class IsoriskCommand implements Runnable {
             EstimateCommand.class,
             RiskCommand.class,
             ChartCommand.class,
+            PackCommand.class,
             DemoCommand.class);
 
     @Spec

@@ -9,11 +9,8 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.isorisk.cli.Run;
-import org.isorisk.cli.render.DemoSummary;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.Csv;
-import org.isorisk.engine.io.CsvTable;
-import org.isorisk.engine.solve.Allocator;
+import org.isorisk.notebooks.PackLayout;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -23,82 +20,36 @@ class DemoCommandTests {
     Path dir;
 
     @Test
-    void theDemoRunsEverythingOnTheSampleFundAndWritesItAll() throws IOException {
+    void theDemoWritesTheSampleFundsWholePackAndSaysWhereTheNotebookIs() throws IOException {
         Path out = dir.resolve("demo");
         Run r = Run.of("demo", "--out", out.toString());
         assertEquals(0, r.code(), r.toString());
         assertEquals("", r.err());
-        for (String f : DemoSummary.FILES) {
+        for (String f : new String[]{PackLayout.NOTEBOOK, PackLayout.MANIFEST, PackLayout.HELPER, PackLayout.SCHEMA,
+                "tables/weights.csv", "tables/trades.csv", "summary.txt"}) {
             assertTrue(Files.isRegularFile(out.resolve(f)), f);
         }
         for (String f : DemoCommand.SAMPLE_FILES) {
-            assertTrue(Files.isRegularFile(out.resolve("inputs").resolve(f)), f);
+            assertTrue(Files.isRegularFile(out.resolve("inputs").resolve(f)), "copy of " + f);
         }
-        // every chart in every format, each a real file of its kind (the chart tests check their content)
-        for (String kind : DemoCharts.KINDS) {
-            for (String ext : new String[] {"png", "svg", "pdf"}) {
-                Path c = out.resolve("charts").resolve(kind + "." + ext);
-                assertTrue(Files.size(c) > 10_000, c.toString());
-            }
-            assertEquals("%PDF-", new String(Files.readAllBytes(out.resolve("charts").resolve(kind + ".pdf")), 0, 5,
-                    java.nio.charset.StandardCharsets.US_ASCII));
-        }
-        assertTrue(r.out().replaceAll("\\s+", " ").contains("Charts in charts/ (PNG at print resolution, SVG, PDF): "
-                + "frontier, weights, marginal-risk, risk-contributions."), r.out());
         assertEquals(r.out(), Files.readString(out.resolve("summary.txt")));
-        String flat = r.out().replaceAll("\\s+", " ");
-        assertTrue(flat.contains("Fernhollow Regional Pension Scheme (fictional)"), r.out());
-        assertTrue(flat.contains("Raising the return target by 0.10 % raises volatility by"), r.out());
-        assertTrue(flat.contains("(the marginal risk of tightening the return target)"), r.out());
-        assertTrue(flat.contains(Allocator.SHORTS_NOTE), r.out());
-        assertTrue(flat.contains("Caution: " + Caution.TEXT), r.out());
-        assertTrue(flat.contains("Tracking error of the proposal against the current holdings:"), r.out());
-
-        for (String f : new String[] {"check.json", "minimum-variance.json", "target-return.json", "tangency.json",
-            "risk-current.json", "risk-proposal.json"}) {
-            JsonNode j = Run.json(out.resolve(f));
-            assertEquals(Caution.TEXT, j.get("caution").asText(), f);
-            assertTrue(j.get("timing_ms").get("total").isNumber(), f);
-        }
-        JsonNode target = Run.json(out.resolve("target-return.json"));
-        assertEquals("optimal", target.get("status").asText());
-        assertEquals(0.05, target.get("expected_return").doubleValue(), 1e-12);
-        assertTrue(target.get("certificate").get("passes").asBoolean());
-        assertEquals("tangency", Run.json(out.resolve("tangency.json")).get("objective").get("kind").asText());
-
-        assertTrue(flat.contains("5. Under the mandate of policy.yaml"), r.out());
-        assertTrue(flat.contains("Frontier under the mandate (11 points"), r.out());
-        JsonNode mandated = Run.json(out.resolve("mandate-target-return.json"));
-        assertEquals("numerical", mandated.get("method").asText());
-        assertEquals("policy.yaml", mandated.get("policy").asText());
-        assertEquals(0.05, mandated.get("expected_return").doubleValue(), 1e-12);
-        for (JsonNode m : mandated.get("multipliers")) {
-            if (m.get("binding").asBoolean()) {
-                assertTrue(flat.contains(m.get("sentence").asText()), m.get("constraint").asText());
-            }
-        }
-        JsonNode frontier = Run.json(out.resolve("frontier.json"));
-        assertEquals(11, frontier.get("points").size());
-        assertEquals(Caution.TEXT, frontier.get("caution").asText());
-        assertEquals(11, Csv.read(out.resolve("frontier.csv"), "frontier").rows().size());
-
-        CsvTable weights = Csv.read(out.resolve("weights.csv"), "weights");
-        assertEquals(12, weights.rows().size());
-        assertEquals(Caution.TEXT, weights.meta("caution").orElseThrow().value());
-        JsonNode proposal = Run.json(out.resolve("risk-proposal.json"));
-        assertEquals(target.get("volatility").doubleValue(), proposal.get("portfolio").get("volatility").doubleValue());
-        assertTrue(proposal.get("tracking_error").get("value").doubleValue() > 0);
+        assertTrue(r.out().startsWith("Committee pack: Fernhollow Regional Pension Scheme, as of 2025-06-30\n"), r.out());
+        assertTrue(r.out().contains("  Notebook: " + out.resolve(PackLayout.NOTEBOOK) + "\n"), r.out());
+        assertTrue(r.out().endsWith("Caution: " + Caution.TEXT + "\n"), r.out());
+        JsonNode nb = Run.json(out.resolve(PackLayout.NOTEBOOK));
+        assertEquals("Fernhollow Regional Pension Scheme", nb.at("/metadata/isorisk/fund").asText());
+        JsonNode m = Run.json(out.resolve(PackLayout.MANIFEST));
+        assertEquals("isorisk", m.get("tool").asText());
+        assertEquals(Caution.TEXT, m.get("caution").asText());
     }
 
     @Test
-    void aSecondRunReplacesTheFolderButAForeignFolderIsLeftAlone() throws IOException {
+    void aSecondRunReplacesItsEarlierPackButAForeignFolderIsLeftAlone() throws IOException {
         Path out = dir.resolve("demo");
-        assertEquals(0, Run.of("demo", "--no-charts", "--out", out.toString()).code());
-        Files.writeString(out.resolve("stale.txt"), "from an earlier run");
-        assertEquals(0, Run.of("demo", "--no-charts", "--out", out.toString()).code());
-        assertFalse(Files.exists(out.resolve("charts")), "--no-charts draws none");
+        assertEquals(0, Run.of("demo", "--out", out.toString()).code());
+        Files.writeString(out.resolve("stale.txt"), "old");
+        assertEquals(0, Run.of("demo", "--out", out.toString()).code());
         assertFalse(Files.exists(out.resolve("stale.txt")));
-
         Path mine = Files.createDirectory(dir.resolve("mine"));
         Files.writeString(mine.resolve("notes.txt"), "keep");
         Run r = Run.of("demo", "--out", mine.toString());

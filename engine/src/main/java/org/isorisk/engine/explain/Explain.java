@@ -25,7 +25,9 @@ public final class Explain {
     public static String sentence(Multiplier m) {
         String c = m.constraint();
         if (!m.binding()) {
-            return describe(c) + " is not binding: moving it a little changes nothing.";
+            String d = describe(c);
+            return Character.toUpperCase(d.charAt(0)) + d.substring(1) + " is not binding: moving it a little changes "
+                    + "nothing.";
         }
         boolean isReturn = c.equals("target_return") || c.startsWith("return");
         double step = isReturn ? RETURN_STEP : WEIGHT_STEP;
@@ -38,6 +40,7 @@ public final class Explain {
             case "upper" -> "Raising the upper limit of " + c.substring(6) + " by " + percent(step);
             case "lower" -> "Raising the lower limit of " + c.substring(6) + " by " + percent(step);
             case "fixed" -> "Raising the fixed weight of " + c.substring(6) + " by " + percent(step);
+            case "group" -> "Raising " + describe(c) + " by " + percent(step);
             default -> "Raising the limit of " + describe(c) + " by " + percent(step);
         };
         String extra = c.equals("target_return") ? " (the marginal risk of tightening the return target)" : "";

@@ -117,8 +117,25 @@ public final class AtomicWrite {
      * Writes the folder {@code target} atomically: {@code body} fills a temporary folder beside it, which then
      * replaces {@code target}. An existing target is replaced only when it is empty or was written by this class
      * (it holds {@link #MARKER}); any other existing folder is refused, so that nothing of the user's is deleted.
+     * Same as {@code folder(target, true, body)}.
      */
     public static void folder(Path target, FolderBody body) {
+        folder(target, true, body);
+    }
+
+    /**
+     * Writes the folder {@code target} atomically: {@code body} fills a temporary sibling
+     * ({@code .NAME.tmp-…}, holding {@link #MARKER}), which is then renamed onto {@code target}. An empty target
+     * is replaced; a non-empty one only when {@code replaceEarlier} is set and it holds {@link #MARKER} (an
+     * earlier isorisk output), never a folder of the user's. The earlier output is renamed aside, the new one
+     * renamed in, and the old one deleted; if the second rename fails the earlier output is put back. A shutdown
+     * hook (Ctrl-C, kill) and the renames share a lock: an interrupted run removes its temporary folder and puts
+     * back an earlier output it had moved aside, so nothing half-written is ever left at {@code target}.
+     *
+     * @param replaceEarlier replace an earlier isorisk output (the command line's {@code --force})
+     * @throws InputException when the target cannot be used or written (named, with a fix)
+     */
+    public static void folder(Path target, boolean replaceEarlier, FolderBody body) {
         Path abs = target.toAbsolutePath();
         Path parent = parentOf(abs, target);
         boolean exists = Files.exists(abs);
@@ -126,29 +143,94 @@ public final class AtomicWrite {
             throw InputException.of("the output folder is an existing file").file(target.toString())
                     .fix("choose another --out").build();
         }
-        if (exists && !Files.exists(abs.resolve(MARKER)) && !isEmpty(abs)) {
+        boolean nonEmpty = exists && !isEmpty(abs);
+        if (nonEmpty && !Files.exists(abs.resolve(MARKER))) {
             throw InputException.of("the output folder exists and was not written by isorisk, so it is left alone")
                     .file(target.toString()).fix("choose another --out, or empty the folder").build();
         }
-        Path staging = null;
-        Path old = null;
+        if (nonEmpty && !replaceEarlier) {
+            throw InputException.of("the output folder exists and is not empty").file(target.toString())
+                    .fix("choose another --out, or add --force to replace the earlier output").build();
+        }
+        Publication pub = new Publication(abs, parent.resolve("." + abs.getFileName() + ".tmp-" + unique()),
+                parent.resolve("." + abs.getFileName() + ".old-" + unique()));
+        Thread hook = new Thread(pub::interrupted, "isorisk-output-cleanup");
+        Runtime.getRuntime().addShutdownHook(hook);
         try {
-            staging = Files.createDirectory(parent.resolve("." + abs.getFileName() + ".tmp-" + unique()));
-            Files.writeString(staging.resolve(MARKER), "written by isorisk; this folder is replaced as a whole\n",
+            Files.createDirectory(pub.staging);
+            Files.writeString(pub.staging.resolve(MARKER), "written by isorisk; this folder is replaced as a whole\n",
                     StandardCharsets.UTF_8);
-            body.fill(staging);
-            if (exists) {
-                old = parent.resolve("." + abs.getFileName() + ".old-" + unique());
-                move(abs, old);
-            }
-            move(staging, abs);
-            staging = null;
+            body.fill(pub.staging);
+            pub.publish();
         } catch (IOException e) {
             throw InputException.of("the output folder cannot be written (" + reason(e) + ")").file(target.toString())
-                    .fix("check that the folder is writable, or choose another --out").build();
+                    .fix("check that the folder is writable and has space, or choose another --out").build();
         } finally {
-            deleteTree(staging);
-            deleteTree(old);
+            pub.cleanUp();
+            try {
+                Runtime.getRuntime().removeShutdownHook(hook);
+            } catch (IllegalStateException shuttingDown) {
+                // the hook is running or has run, and has cleaned up
+            }
+        }
+    }
+
+    /** The renames of one {@link #folder} call and their undoing, serialised with the shutdown hook. */
+    private static final class Publication {
+        private final Path target;
+        private final Path staging;
+        private final Path aside;
+        private boolean aborted;
+        private boolean published;
+
+        Publication(Path target, Path staging, Path aside) {
+            this.target = target;
+            this.staging = staging;
+            this.aside = aside;
+        }
+
+        synchronized void publish() throws IOException {
+            if (aborted) {
+                throw new IOException("interrupted");
+            }
+            if (Files.isDirectory(target)) {
+                if (isEmpty(target)) {
+                    Files.delete(target);
+                } else {
+                    move(target, aside);
+                }
+            }
+            try {
+                move(staging, target);
+            } catch (IOException e) {
+                restore();
+                throw e;
+            }
+            published = true;
+            deleteTree(aside);
+        }
+
+        /** Runs in the shutdown hook. */
+        synchronized void interrupted() {
+            aborted = true;
+            cleanUp();
+        }
+
+        synchronized void cleanUp() {
+            if (!published) {
+                deleteTree(staging);
+                restore();
+            }
+        }
+
+        private void restore() {
+            if (Files.isDirectory(aside) && !Files.exists(target)) {
+                try {
+                    move(aside, target);
+                } catch (IOException e) {
+                    // the earlier output stays beside the target under its .old- name; nothing half-written
+                }
+            }
         }
     }
 

@@ -43,10 +43,14 @@ public final class CsvWriter {
         return this;
     }
 
-    /** A text cell, quoted when needed. */
+    /**
+     * A text cell, quoted when needed: with a comma, quote or line break, leading or trailing blanks, or a
+     * {@code #} anywhere (readers that take {@code #} as a comment, such as pandas' {@code comment="#"}, skip
+     * the rest of an unquoted line).
+     */
     public static String cell(String s) {
         if (s.indexOf(',') >= 0 || s.indexOf('"') >= 0 || s.indexOf('\n') >= 0 || s.indexOf('\r') >= 0
-                || s.startsWith("#") || !s.equals(s.strip())) {
+                || s.indexOf('#') >= 0 || !s.equals(s.strip())) {
             return '"' + s.replace("\"", "\"\"") + '"';
         }
         return s;

@@ -70,6 +70,23 @@ class OutputTests {
     }
 
     @Test
+    void withoutReplaceAnEarlierOutputIsKeptAndAFailedBodyLeavesItUntouched() throws IOException {
+        Path out = dir.resolve("pack");
+        AtomicWrite.folder(out, false, d -> Files.writeString(d.resolve("a.txt"), "1"));
+        InputException e = assertThrows(InputException.class,
+                () -> AtomicWrite.folder(out, false, d -> Files.writeString(d.resolve("b.txt"), "2")));
+        assertTrue(e.getMessage().endsWith("the output folder exists and is not empty; fix: choose another --out, or "
+                + "add --force to replace the earlier output"), e.getMessage());
+        assertThrows(IllegalStateException.class, () -> AtomicWrite.folder(out, true, d -> {
+            Files.writeString(d.resolve("c.txt"), "3");
+            throw new IllegalStateException("stopped half way");
+        }));
+        assertEquals("1", Files.readString(out.resolve("a.txt")), "the earlier output is untouched");
+        assertFalse(Files.exists(out.resolve("c.txt")));
+        assertEquals(List.of("pack"), names(), "no temporary or old folder is left beside it");
+    }
+
+    @Test
     void writtenCsvReadsBackCellForCell() throws IOException {
         StringWriter s = new StringWriter();
         new CsvWriter(s).comment("caution", "line one\nline two").row("asset", "weight", "note")

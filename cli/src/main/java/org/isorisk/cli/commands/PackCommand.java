@@ -1,0 +1,230 @@
+package org.isorisk.cli.commands;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.OffsetDateTime;
+import java.time.ZoneOffset;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import org.isorisk.cli.ExitCode;
+import org.isorisk.cli.IsoriskCommand;
+import org.isorisk.cli.options.InputOptions;
+import org.isorisk.cli.options.PolicyOption;
+import org.isorisk.engine.explain.Caution;
+import org.isorisk.engine.explain.Explain;
+import org.isorisk.engine.io.LoadedUniverse;
+import org.isorisk.engine.io.PortfolioFile;
+import org.isorisk.engine.io.PortfolioReader;
+import org.isorisk.engine.io.SourceFile;
+import org.isorisk.engine.io.Units;
+import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.Policy;
+import org.isorisk.engine.solve.Allocator;
+import org.isorisk.notebooks.PackContent;
+import org.isorisk.notebooks.PackLayout;
+import org.isorisk.notebooks.folder.PackFiles;
+import org.isorisk.notebooks.folder.PackFolder;
+import org.isorisk.notebooks.pack.ChartMaker;
+import org.isorisk.notebooks.pack.PackRunner;
+import org.isorisk.notebooks.pack.PackSpec;
+import org.isorisk.notebooks.pack.PackSpecReader;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+
+/**
+ * {@code isorisk pack}: the committee pack of a fund, from its input tables and a pack file, into one folder
+ * (notebook, charts, CSV tables, copies of the inputs, manifest), written atomically. Reading and printing only:
+ * the analysis is {@link PackRunner}'s, the folder {@link PackFolder}'s.
+ */
+@Command(name = "pack", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Write a fund's investment committee pack (notebook, charts, tables, manifest) into one folder.",
+        description = {"Write the investment committee pack of a fund into one folder: a Jupyter notebook with the "
+                + "assumptions, the mandate in words, the minimum-variance and proposed portfolios, the frontier, the "
+                + "risk of the proposal, every binding constraint with its shadow price, the trades and a run record; "
+                + "the charts, the CSV tables, copies of the inputs and manifest.json (SHA-256 of every file). The "
+                + "folder appears complete or not at all."})
+public final class PackCommand extends BaseCommand {
+
+
+    @Mixin
+    InputOptions inputs;
+
+    @Mixin
+    PolicyOption policyOption;
+
+    @Option(names = "--holdings", paramLabel = "FILE",
+            description = "Current holdings: CSV asset,weight or asset,market_value; adds the trade list.")
+    Path holdings;
+
+    @Option(names = "--pack-file", paramLabel = "FILE", required = true,
+            description = "The pack file (YAML): fund name and currency, as-of date, targets, proposal, charts "
+                    + "(see the README, 'The pack file').")
+    Path packFile;
+
+    @Option(names = "--out", paramLabel = "DIR", required = true,
+            description = "The folder to create. It must not exist or be empty, unless --force is given.")
+    Path out;
+
+    @Option(names = "--force",
+            description = "Replace an existing earlier pack in --out (never a folder that is not an isorisk pack).")
+    boolean force;
+
+    @Override
+    protected ExitCode execute() {
+        LoadedUniverse u = inputs.load(true, "pack");
+        Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of());
+        out().print(made.summary());
+        out().flush();
+        return ExitCode.OK;
+    }
+
+    /**
+     * What a pack run made.
+     *
+     * @param folder  the pack folder
+     * @param content what the notebook says
+     * @param files   number of files written (manifest included)
+     * @param summary the terminal summary (also written as {@code summary.txt})
+     */
+    public record Made(Path folder, PackContent content, int files, String summary) {
+    }
+
+    /**
+     * Reads the policy, holdings and pack file, runs the analysis and writes the folder; shared with {@code demo}.
+     *
+     * @param extraInputs further files to record and copy (e.g. the demo's README), as role and path
+     */
+    static Made make(LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile, Units units, Path out,
+                     boolean force, List<PackFolder.Input> extraInputs) {
+        PackSpec spec = PackSpecReader.read(packFile);
+        PolicyOption.Loaded loaded = policyOption.load(read);
+        LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
+        Path policy = policyOption.path().orElse(null);
+        List<String> notes = new ArrayList<>(u.warnings());
+        Mandate mandate = loaded.mandate(java.util.Map.of());
+        Optional<Policy> pol = loaded.policy();
+        if (pol.isPresent() && pol.get().turnoverMax().isPresent() && holdings != null) {
+            notes.add("The policy limits turnover to " + Explain.percent(pol.get().turnoverMax().getAsDouble())
+                    + "; the trade list moves the holdings fully to the proposal and is not limited by it (rebalancing "
+                    + "under the turnover limit and trading costs is a separate step).");
+        }
+        Optional<double[]> weights = Optional.empty();
+        List<SourceFile> sources = new ArrayList<>(u.provenance().inputs());
+        if (holdings != null) {
+            PortfolioFile h = PortfolioReader.read(holdings, "holdings", u.assets(), units);
+            weights = Optional.of(h.weights());
+            notes.addAll(h.warnings());
+            sources.add(h.source());
+            if (spec.fundSize().isEmpty() && h.marketValue().isPresent()) {
+                spec = spec.withFundSize(h.marketValue().getAsDouble());
+            }
+        }
+        java.time.LocalDate asOf = spec.asOf();
+        u.provenance().asOfDate().filter(d -> !d.equals(asOf)).ifPresent(d -> notes.add(
+                "The pack file's as-of date differs from the inputs' (" + d + "); the pack shows the pack file's."));
+
+        String version = version();
+        OffsetDateTime now = OffsetDateTime.now(ZoneOffset.UTC).truncatedTo(ChronoUnit.SECONDS);
+        PackFolder folder = new PackFolder(version, now);
+        List<PackContent.InputFile> recorded = new ArrayList<>();
+        for (SourceFile s : sources) {
+            recorded.add(new PackContent.InputFile(s.role(), s.name(), s.sha256()));
+            folder.input(s.role(), Path.of(s.path()));
+        }
+        List<PackFolder.Input> more = new ArrayList<>();
+        more.add(new PackFolder.Input("pack-file", packFile));
+        more.addAll(extraInputs);
+        for (PackFolder.Input in : more) {
+            folder.input(in.role(), in.path());
+        }
+        java.util.Map<String, String> hashes = folder.inputHashes();
+        for (PackFolder.Input in : more) {
+            recorded.add(new PackContent.InputFile(in.role(), in.path().getFileName().toString(), hashes.get(in.role())));
+        }
+
+        List<PackContent.Parameter> parameters = new ArrayList<>();
+        parameters.add(new PackContent.Parameter("Policy", policy == null
+                ? "none: only the budget applies, short positions allowed" : policy.getFileName().toString()));
+        parameters.add(new PackContent.Parameter("Units of the inputs", units.label()));
+        PackRunner.Outcome o = PackRunner.run(new PackRunner.Request(u.universe(), mandate, spec, weights,
+                u.provenance().scenario() == null ? "" : "Inputs: " + u.provenance().scenario() + ".", version, now,
+                parameters, recorded, notes,
+                new PackCharts(org.isorisk.engine.chart.ChartContext.of(u.provenance(), spec.fund()))));
+
+        com.fasterxml.jackson.databind.node.ObjectNode params = spec.toJson();
+        params.put("policy", policy == null ? null : policy.getFileName().toString());
+        params.put("holdings", holdings == null ? null : holdings.getFileName().toString());
+        params.put("units", units.label());
+        params.put("force", force);
+        folder.parameters(params);
+        PackFiles.addTo(folder, o.content());
+        java.util.Set<String> copied = new java.util.HashSet<>();
+        for (SourceFile s : sources) {
+            copy(folder, s.role(), Path.of(s.path()), copied);
+        }
+        for (PackFolder.Input in : more) {
+            copy(folder, in.role(), in.path(), copied);
+        }
+        String summary = summary(o.content(), out, notes);
+        folder.add("summary.txt", os -> os.write(summary.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+        PackFolder.Result r = folder.commit(out, force);
+        return new Made(r.folder(), o.content(), r.files().size(), summary);
+    }
+
+    /** A copy of an input under {@code inputs/}, by its file name (prefixed with its role if two names clash). */
+    private static void copy(PackFolder folder, String role, Path file, java.util.Set<String> taken) {
+        String name = safeName(file);
+        if (!taken.add(name)) {
+            name = role.replaceAll("[^a-zA-Z0-9_-]", "_") + "-" + name;
+            taken.add(name);
+        }
+        folder.add("inputs/" + name, os -> Files.copy(file, os));
+    }
+
+    private static String safeName(Path file) {
+        String n = file.getFileName().toString().replaceAll("[^a-zA-Z0-9._-]", "_");
+        return n.isEmpty() || !Character.isLetterOrDigit(n.charAt(0)) ? "input_" + n : n;
+    }
+
+    private static String version() {
+        try {
+            return new IsoriskCommand.Version().getVersion()[0].replaceFirst("^isorisk ", "");
+        } catch (java.io.IOException e) {
+            return "(unknown version)";
+        }
+    }
+
+    /** The short terminal summary: fund, proposal, minimum variance, binding constraints, where the notebook is. */
+    static String summary(PackContent c, Path out, List<String> warnings) {
+        PackContent.Portfolio p = c.proposal();
+        PackContent.Portfolio min = c.portfolios().get(0);
+        long binding = c.binding().stream().filter(b -> b.portfolio().equals(p.label())).count();
+        StringBuilder b = new StringBuilder();
+        b.append("Committee pack: ").append(c.heading().fund()).append(", as of ").append(c.heading().asOf()).append('\n');
+        b.append(String.format(Locale.ROOT, "  Proposal (%s): expected return %s, volatility %s, %d binding constraint%s%n",
+                p.label(), Explain.percent(p.expectedReturn()), Explain.percent(p.volatility()), binding,
+                binding == 1 ? "" : "s"));
+        b.append(String.format(Locale.ROOT, "  Minimum variance: expected return %s, volatility %s%n",
+                Explain.percent(min.expectedReturn()), Explain.percent(min.volatility())));
+        c.current().ifPresent(h -> b.append(String.format(Locale.ROOT, "  Current holdings: expected return %s, "
+                + "volatility %s%n", Explain.percent(h.expectedReturn()), Explain.percent(h.volatility()))));
+        boolean pass = c.portfolios().stream().allMatch(PackContent.Portfolio::passes);
+        b.append("  Certificates: ").append(pass ? "every portfolio passes its KKT check"
+                : "WARNING: a KKT certificate is above its tolerance (see the run record)").append('\n');
+        for (String n : c.run().notes()) {
+            if (n.equals(Allocator.SHORTS_NOTE) || warnings.contains(n)) {
+                b.append("  Note: ").append(n).append('\n');
+            }
+        }
+        b.append("  The run record in the notebook lists every note of the run (").append(c.run().notes().size())
+                .append(").\n");
+        b.append("  Notebook: ").append(out.resolve(PackLayout.NOTEBOOK)).append('\n');
+        b.append("  Folder: ").append(out).append(" (charts, tables, inputs, manifest.json with SHA-256 of every file)\n");
+        b.append('\n').append("Caution: ").append(Caution.TEXT).append('\n');
+        return b.toString();
+    }
+}

@@ -1,0 +1,290 @@
+package org.isorisk.notebooks;
+
+import java.time.LocalDate;
+import java.time.OffsetDateTime;
+import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * Everything the committee notebook says, as plain values: text as given (the exporter escapes it), numbers
+ * as decimals, tables as {@link Table}s, charts as image bytes. Built by the pack runner from engine results;
+ * the notebook writer only lays it out.
+ *
+ * @param heading     fund, currency, as-of date, caution
+ * @param assumptions the capital-market assumptions and how they were made
+ * @param mandate     the mandate in plain sentences, one per rule
+ * @param portfolios  the minimum-variance portfolio first, then the target portfolios; one is the proposal
+ * @param frontier    sampled frontier points (target, return, volatility), when the pack draws a frontier
+ * @param weights     weights table: one row per asset, one column per portfolio
+ * @param risk        risk table of the proposed portfolio: weight, marginal risk, contribution, share
+ * @param binding     every binding constraint of every portfolio, with its shadow price in a sentence
+ * @param constraints the shadow-price table behind {@code binding} (CSV for the analyst)
+ * @param charts      chart images, placed by kind
+ * @param trades      the trade list when the pack rebalances current holdings
+ * @param stress      stress tables, one per scenario sweep, when scenarios ran
+ * @param run         the run record: tool version, inputs and their hashes, parameters, certificates
+ */
+public record PackContent(Heading heading, Assumptions assumptions, List<String> mandate, List<Portfolio> portfolios,
+                          Optional<Table> frontier, Table weights, Table risk, List<Binding> binding, Table constraints, List<Chart> charts,
+                          Optional<Table> trades, List<Table> stress, RunRecord run) {
+
+    public PackContent {
+        Objects.requireNonNull(heading, "heading");
+        Objects.requireNonNull(assumptions, "assumptions");
+        Objects.requireNonNull(weights, "weights");
+        Objects.requireNonNull(risk, "risk");
+        Objects.requireNonNull(constraints, "constraints");
+        Objects.requireNonNull(run, "run");
+        mandate = List.copyOf(mandate);
+        portfolios = List.copyOf(portfolios);
+        if (portfolios.isEmpty()) {
+            throw new IllegalArgumentException("a pack shows at least one portfolio");
+        }
+        if (portfolios.stream().filter(Portfolio::proposed).count() != 1) {
+            throw new IllegalArgumentException("exactly one portfolio is the proposal");
+        }
+        frontier = frontier == null ? Optional.empty() : frontier;
+        binding = List.copyOf(binding);
+        charts = List.copyOf(charts);
+        trades = trades == null ? Optional.empty() : trades;
+        stress = List.copyOf(stress);
+        java.util.Set<String> names = new java.util.HashSet<>();
+        for (Table t : tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades)) {
+            if (!names.add(t.name())) {
+                throw new IllegalArgumentException("two tables are named " + t.name());
+            }
+        }
+        java.util.Set<String> chartNames = new java.util.HashSet<>();
+        for (Chart c : charts) {
+            if (!chartNames.add(c.name())) {
+                throw new IllegalArgumentException("two charts are named " + c.name());
+            }
+        }
+    }
+
+    /** Every table of the pack, in notebook order; each is also written as CSV next to the notebook. */
+    public List<Table> tables() {
+        return tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades);
+    }
+
+    private static List<Table> tablesOf(Assumptions assumptions, List<Portfolio> portfolios, Table weights,
+                                        Optional<Table> frontier, Table risk, Table constraints, List<Table> stress,
+                                        Optional<Table> trades) {
+        List<Table> all = new java.util.ArrayList<>();
+        all.add(assumptions.table());
+        all.add(assumptions.correlation());
+        all.add(summary(portfolios));
+        all.add(weights);
+        frontier.ifPresent(all::add);
+        all.add(risk);
+        all.add(constraints);
+        stress.forEach(all::add);
+        trades.ifPresent(all::add);
+        return all;
+    }
+
+    /** The portfolios as a table: label, expected return, volatility, method, certificate. */
+    public Table summary() {
+        return summary(portfolios);
+    }
+
+    private static Table summary(List<Portfolio> portfolios) {
+        Table.Builder b = Table.builder("portfolios", "Portfolios")
+                .column(Table.Column.text("portfolio", "Portfolio"))
+                .column(Table.Column.text("role", "Role"))
+                .column(Table.Column.percent("expected_return", "Expected return"))
+                .column(Table.Column.percent("volatility", "Volatility"))
+                .column(Table.Column.text("method", "Method"))
+                .column(Table.Column.text("certificate", "KKT certificate"));
+        for (Portfolio p : portfolios) {
+            b.row(p.label(), p.proposed() ? "proposed" : "", p.expectedReturn(), p.volatility(), p.method(),
+                    p.certificate());
+        }
+        return b.build();
+    }
+
+    /** Method label of a portfolio that was given (the current holdings), not solved. */
+    public static final String GIVEN = "given";
+
+    /** The current holdings, when the pack has them. */
+    public Optional<Portfolio> current() {
+        return portfolios.stream().filter(p -> p.method().equals(GIVEN)).findFirst();
+    }
+
+    /** The proposed portfolio. */
+    public Portfolio proposal() {
+        return portfolios.stream().filter(Portfolio::proposed).findFirst().orElseThrow();
+    }
+
+    /** Charts of one kind, in the order given. */
+    public List<Chart> charts(ChartKind kind) {
+        return charts.stream().filter(c -> c.kind() == kind).toList();
+    }
+
+    /**
+     * The title block.
+     *
+     * @param fund     fund name as given in the pack file
+     * @param currency currency code or name, e.g. GBP
+     * @param asOf     the date the assumptions and holdings refer to
+     * @param note     a line under the title, e.g. "Invented fund; all figures illustrative" (may be empty)
+     * @param caution  the caution text ({@code explain.Caution.TEXT})
+     */
+    public record Heading(String fund, String currency, LocalDate asOf, String note, String caution) {
+        public Heading {
+            Objects.requireNonNull(fund, "fund");
+            Objects.requireNonNull(currency, "currency");
+            Objects.requireNonNull(asOf, "asOf");
+            note = note == null ? "" : note;
+            if (caution == null || caution.isBlank()) {
+                throw new IllegalArgumentException("every pack carries the caution");
+            }
+        }
+    }
+
+    /**
+     * The capital-market assumptions.
+     *
+     * @param table           asset, expected return, volatility
+     * @param correlation     the correlation matrix as a table
+     * @param lowest          the least correlated pair
+     * @param highest         the most correlated pair
+     * @param average         mean of the off-diagonal correlations
+     * @param conditionNumber condition number of the covariance matrix (2-norm)
+     * @param estimator       how the assumptions were made, in words (e.g. "given as tables by the analyst")
+     */
+    public record Assumptions(Table table, Table correlation, Pair lowest, Pair highest, double average,
+                              double conditionNumber, String estimator) {
+        public Assumptions {
+            Objects.requireNonNull(table, "table");
+            Objects.requireNonNull(correlation, "correlation");
+            Objects.requireNonNull(estimator, "estimator");
+        }
+    }
+
+    /** A correlation between two assets. */
+    public record Pair(String first, String second, double correlation) {
+    }
+
+    /**
+     * One portfolio of the pack.
+     *
+     * @param label          e.g. "Minimum variance", "Target 5.50 %"
+     * @param proposed       true for the portfolio the pack proposes
+     * @param expectedReturn decimal, annualised
+     * @param volatility     decimal, annualised
+     * @param method         how it was solved ({@code closed-form}, {@code numerical}, ...)
+     * @param certificate    one line on the KKT certificate (residuals, pass or warn)
+     * @param passes         true when the certificate passes
+     */
+    public record Portfolio(String label, boolean proposed, double expectedReturn, double volatility, String method,
+                            String certificate, boolean passes) {
+        public Portfolio {
+            Objects.requireNonNull(label, "label");
+            Objects.requireNonNull(method, "method");
+            Objects.requireNonNull(certificate, "certificate");
+        }
+    }
+
+    /**
+     * A binding constraint of one portfolio with its shadow price.
+     *
+     * @param portfolio         label of the portfolio it belongs to
+     * @param constraint        name as in the JSON contract ({@code upper:Cash}, {@code group:Equity:max})
+     * @param variancePerUnit   ∂V*∂limit
+     * @param volatilityPerUnit ∂σ*∂limit
+     * @param sentence          {@code explain.Explain.sentence} of the multiplier
+     */
+    public record Binding(String portfolio, String constraint, double variancePerUnit, double volatilityPerUnit,
+                          String sentence) {
+    }
+
+    /**
+     * Where a chart goes in the notebook: the frontier and the marginal risk of the return target (∂σ*∂m along
+     * the frontier) in the frontier section, weights with the portfolios, risk contributions with the risk of
+     * the proposal, stress with the stress tables.
+     */
+    public enum ChartKind {
+        FRONTIER, WEIGHTS, MARGINAL_RISK, RISK_CONTRIBUTION, STRESS
+    }
+
+    /**
+     * A chart image.
+     *
+     * @param name    file stem ({@code frontier} → {@code charts/frontier.png})
+     * @param kind    which section shows it
+     * @param title   heading above the chart
+     * @param caption a sentence under it (what to read from it)
+     * @param png     the PNG bytes (copied)
+     * @param svg     the same chart as SVG text
+     * @param pdf     the same chart as PDF bytes, for the folder (empty when not made; copied)
+     */
+    public record Chart(String name, ChartKind kind, String title, String caption, byte[] png, String svg,
+                        byte[] pdf) {
+        public Chart {
+            if (name == null || !name.matches("[a-z0-9][a-z0-9_-]{0,40}")) {
+                throw new IllegalArgumentException("chart name must be a short lower-case file stem: " + name);
+            }
+            Objects.requireNonNull(kind, "kind");
+            Objects.requireNonNull(title, "title");
+            caption = caption == null ? "" : caption;
+            png = png.clone();
+            Objects.requireNonNull(svg, "svg");
+            pdf = pdf == null ? new byte[0] : pdf.clone();
+        }
+
+        @Override
+        public byte[] pdf() {
+            return pdf.clone();
+        }
+
+        @Override
+        public byte[] png() {
+            return png.clone();
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof Chart c && c.name.equals(name) && java.util.Arrays.equals(c.png, png) && c.svg.equals(svg);
+        }
+
+        @Override
+        public int hashCode() {
+            return name.hashCode();
+        }
+
+        @Override
+        public String toString() {
+            return "Chart[" + name + ", " + png.length + " PNG bytes]";
+        }
+    }
+
+    /**
+     * The run record.
+     *
+     * @param toolVersion isorisk version
+     * @param created     when the pack was made
+     * @param parameters  the parameters of the run in order (name → value as text)
+     * @param inputs      the input files with their SHA-256
+     * @param notes       remarks on the run (solver notes, warnings)
+     */
+    public record RunRecord(String toolVersion, OffsetDateTime created, List<Parameter> parameters,
+                            List<InputFile> inputs, List<String> notes) {
+        public RunRecord {
+            Objects.requireNonNull(toolVersion, "toolVersion");
+            Objects.requireNonNull(created, "created");
+            parameters = List.copyOf(parameters);
+            inputs = List.copyOf(inputs);
+            notes = List.copyOf(notes);
+        }
+    }
+
+    /** A named parameter of the run. */
+    public record Parameter(String name, String value) {
+    }
+
+    /** An input file by the name the user gave and its SHA-256 (hex). */
+    public record InputFile(String role, String name, String sha256) {
+    }
+}

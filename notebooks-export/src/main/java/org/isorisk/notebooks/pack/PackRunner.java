@@ -1,0 +1,360 @@
+package org.isorisk.notebooks.pack;
+
+import java.math.BigDecimal;
+import java.text.Normalizer;
+import java.time.OffsetDateTime;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.Set;
+import org.isorisk.engine.error.NoSolutionException;
+import org.isorisk.engine.explain.Caution;
+import org.isorisk.engine.explain.Explain;
+import org.isorisk.engine.explain.MandateWords;
+import org.isorisk.engine.frontier.Frontiers;
+import org.isorisk.engine.frontier.Grid;
+import org.isorisk.engine.linalg.Spectrum;
+import org.isorisk.engine.model.AllocationRequest;
+import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.Certificate;
+import org.isorisk.engine.model.Frontier;
+import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.Multiplier;
+import org.isorisk.engine.model.Objective;
+import org.isorisk.engine.model.Solution;
+import org.isorisk.engine.risk.Correlations;
+import org.isorisk.engine.risk.RiskAnalysis;
+import org.isorisk.engine.risk.RiskDecomposition;
+import org.isorisk.engine.solve.Allocator;
+import org.isorisk.notebooks.PackContent;
+import org.isorisk.notebooks.Table;
+
+/**
+ * Runs the whole analysis of a committee pack through the engine and lays the results out as
+ * {@link PackContent}: the minimum-variance portfolio, one portfolio per target, the tangency portfolio when a
+ * risk-free rate is given, a sampled frontier, the risk decomposition of the proposal, the binding
+ * constraints with their shadow prices in sentences, the trade list from current holdings, and the charts.
+ * Every number comes from an engine call; this class only chooses what to ask and how to show it.
+ */
+public final class PackRunner {
+    private PackRunner() {
+    }
+
+    /** Label of the current holdings in the pack's tables. */
+    static final String CURRENT = "Current holdings";
+
+    /** Up to this many assets the correlation matrix's columns carry the names; beyond, numbers. */
+    static final int NAMED_CORRELATION_COLUMNS = 6;
+
+    /**
+     * One pack run.
+     *
+     * @param universe    the assets and their assumptions
+     * @param mandate     the mandate (from the policy file, or the budget alone)
+     * @param spec        the pack file
+     * @param holdings    current weights in universe order, when a holdings file was given
+     * @param estimator   how the assumptions were made, in words; the pack file's {@code assumptions_note} wins
+     * @param toolVersion isorisk's version
+     * @param created     when the pack is made
+     * @param parameters  the run's parameters as given on the command line
+     * @param inputs      the input files with their SHA-256
+     * @param notes       remarks from reading the inputs (warnings), for the run record
+     * @param charts      draws the charts
+     */
+    public record Request(AssetUniverse universe, Mandate mandate, PackSpec spec, Optional<double[]> holdings,
+                          String estimator, String toolVersion, OffsetDateTime created,
+                          List<PackContent.Parameter> parameters, List<PackContent.InputFile> inputs,
+                          List<String> notes, ChartMaker charts) {
+        public Request {
+            Objects.requireNonNull(universe, "universe");
+            Objects.requireNonNull(mandate, "mandate");
+            Objects.requireNonNull(spec, "spec");
+            holdings = holdings == null ? Optional.empty() : holdings.map(double[]::clone);
+            estimator = estimator == null ? "" : estimator;
+            Objects.requireNonNull(toolVersion, "toolVersion");
+            Objects.requireNonNull(created, "created");
+            parameters = List.copyOf(parameters);
+            inputs = List.copyOf(inputs);
+            notes = List.copyOf(notes);
+            Objects.requireNonNull(charts, "charts");
+        }
+    }
+
+    /** What a run produced: the engine results and the laid-out content. */
+    public record Outcome(PackResults results, PackContent content) {
+    }
+
+    /**
+     * Runs the analysis.
+     *
+     * @throws NoSolutionException when a portfolio the pack needs has no solution (e.g. a target above what
+     *                             the mandate allows); the message names the target
+     */
+    public static Outcome run(Request r) {
+        PackSpec spec = r.spec();
+        AssetUniverse u = r.universe();
+        AllocationRequest base = AllocationRequest.of(u, r.mandate(), Objective.minimumVariance());
+        Solution minimum = Allocator.solve(base);
+        List<Solution> targets = new ArrayList<>();
+        Solution proposal = null;
+        for (double t : spec.targets()) {
+            Solution s;
+            try {
+                s = Allocator.solve(base.withObjective(Objective.targetReturn(t)));
+            } catch (NoSolutionException e) {
+                throw new NoSolutionException(e.reason(), "target return " + Explain.percent(t) + " of the pack file: "
+                        + e.getMessage(), e.constraints());
+            }
+            targets.add(s);
+            if (t == spec.proposed()) {
+                proposal = s;
+            }
+        }
+        List<String> notes = new ArrayList<>(r.notes());
+        Optional<Solution> tangency = Optional.empty();
+        if (spec.riskFree().isPresent()) {
+            try {
+                tangency = Optional.of(Allocator.solve(base.withObjective(Objective.tangency(spec.riskFree().get()))));
+            } catch (NoSolutionException e) {
+                notes.add("No tangency portfolio: " + e.getMessage());
+            }
+        }
+        Frontier frontier = frontier(base, spec.frontierPoints());
+        RiskDecomposition risk = RiskAnalysis.decompose(u, proposal.weights());
+        Optional<RiskDecomposition> currentRisk = r.holdings().map(h -> RiskAnalysis.decompose(u, h));
+        PackResults results = new PackResults(spec, u, r.mandate(), minimum, targets, proposal, tangency, frontier,
+                risk, r.holdings(), currentRisk);
+        List<PackContent.Chart> charts = r.charts().draw(results);
+        if (charts.isEmpty() && !spec.charts().isEmpty()) {
+            notes.add("Charts were asked for but this build draws none.");
+        }
+        return new Outcome(results, layout(r, results, charts, notes));
+    }
+
+    /**
+     * The efficient frontier with {@code points} portfolios from the minimum-variance end to the highest return
+     * the mandate allows, through the engine's front door for frontiers: exact (critical line method, with its
+     * corner portfolios) where only budget, bounds and fixed weights apply, sampled by the warm-started QP
+     * otherwise.
+     */
+    private static Frontier frontier(AllocationRequest base, int points) {
+        AssetUniverse u = base.universe();
+        Mandate m = base.mandate();
+        return Allocator.criticalLineApplies(m)
+                ? Frontiers.mandate(u, m, Grid.points(points), base.settings())
+                : Frontiers.sampled(u, m, Grid.points(points), base.settings());
+    }
+
+    // ------------------------------------------------------------------ layout
+
+    private static PackContent layout(Request r, PackResults res, List<PackContent.Chart> charts, List<String> notes) {
+        PackSpec spec = r.spec();
+        AssetUniverse u = r.universe();
+        List<String> assets = u.assets();
+        int n = u.size();
+
+        PackContent.Heading heading = new PackContent.Heading(spec.fund(), spec.currency(), spec.asOf(), spec.note(),
+                Caution.TEXT);
+
+        Table.Builder at = Table.builder("assumptions", "Assumptions")
+                .column(Table.Column.text("asset", "Asset"))
+                .column(Table.Column.percent("expected_return", "Expected return"))
+                .column(Table.Column.percent("volatility", "Volatility"));
+        for (int i = 0; i < n; i++) {
+            at.row(assets.get(i), u.expectedReturn(i), Math.sqrt(u.covariance(i, i)));
+        }
+        Correlations corr = Correlations.of(u);
+        List<String> keys = columnKeys(assets);
+        // Many assets: columns headed by number (the "No." column says which), so the matrix fits a page.
+        boolean numbered = n > NAMED_CORRELATION_COLUMNS;
+        Table.Builder ct = Table.builder("correlation", "Correlations").column(Table.Column.text("asset", "Asset"));
+        if (numbered) {
+            ct.column(Table.Column.text("no", "No."));
+        }
+        for (int j = 0; j < n; j++) {
+            ct.column(Table.Column.decimal(keys.get(j), numbered ? Integer.toString(j + 1) : assets.get(j)));
+        }
+        for (int i = 0; i < n; i++) {
+            List<Object> row = new ArrayList<>();
+            row.add(assets.get(i));
+            if (numbered) {
+                row.add(Integer.toString(i + 1));
+            }
+            for (int j = 0; j < n; j++) {
+                row.add(corr.get(i, j));
+            }
+            ct.row(row.toArray());
+        }
+        String estimator = !spec.assumptionsNote().isBlank() ? spec.assumptionsNote()
+                : !r.estimator().isBlank() ? r.estimator() : "Expected returns and covariance as given in the input tables.";
+        PackContent.Assumptions assumptions = new PackContent.Assumptions(at.build(), ct.build(), pair(corr.lowest()),
+                pair(corr.highest()), corr.average(), Spectrum.of(u.covariance()).conditionNumber(), estimator);
+
+        // portfolios, in order: minimum variance, targets, tangency
+        List<Solution> sols = new ArrayList<>();
+        List<String> labels = new ArrayList<>();
+        List<String> columns = new ArrayList<>();
+        sols.add(res.minimum());
+        labels.add("Minimum variance");
+        columns.add("minimum_variance");
+        for (int k = 0; k < res.targets().size(); k++) {
+            double t = spec.targets().get(k);
+            sols.add(res.targets().get(k));
+            labels.add("Target " + Explain.percent(t));
+            columns.add("target_" + BigDecimal.valueOf(t).movePointRight(2).stripTrailingZeros().toPlainString()
+                    .replace('.', '_').replace("-", "minus_"));
+        }
+        res.tangency().ifPresent(s -> {
+            sols.add(s);
+            labels.add("Tangency (risk-free " + Explain.percent(spec.riskFree().orElseThrow()) + ")");
+            columns.add("tangency");
+        });
+        List<PackContent.Portfolio> portfolios = new ArrayList<>();
+        List<PackContent.Binding> binding = new ArrayList<>();
+        Table.Builder cons = Table.builder("constraints", "Binding constraints and shadow prices")
+                .column(Table.Column.text("portfolio", "Portfolio"))
+                .column(Table.Column.text("constraint", "Constraint"))
+                .column(Table.Column.number("variance_per_unit", "∂V*/∂limit"))
+                .column(Table.Column.number("volatility_per_unit", "∂σ*/∂limit"));
+        Set<String> runNotes = new LinkedHashSet<>(notes);
+        for (int k = 0; k < sols.size(); k++) {
+            Solution s = sols.get(k);
+            Certificate c = s.certificate();
+            portfolios.add(new PackContent.Portfolio(labels.get(k), s == res.proposal(), s.expectedReturn(),
+                    s.volatility(), s.method().label(), certificateLine(c), c.passes()));
+            for (Multiplier m : s.binding()) {
+                String sentence = Explain.sentence(m);
+                binding.add(new PackContent.Binding(labels.get(k), m.constraint(), m.variancePerUnit(),
+                        m.volatilityPerUnit(), sentence));
+                cons.row(labels.get(k), m.constraint(), m.variancePerUnit(), m.volatilityPerUnit());
+            }
+            runNotes.addAll(s.notes());
+            if (!c.passes()) {
+                runNotes.add(labels.get(k) + ": the KKT certificate is above its tolerance (" + certificateLine(c)
+                        + "); treat this portfolio with caution.");
+            }
+        }
+
+        res.currentRisk().ifPresent(c -> portfolios.add(new PackContent.Portfolio(CURRENT, false, c.expectedReturn(),
+                c.volatility(), PackContent.GIVEN, "given, not optimised", true)));
+        Table.Builder wt = Table.builder("weights", "Weights").column(Table.Column.text("asset", "Asset"));
+        for (int k = 0; k < sols.size(); k++) {
+            wt.column(Table.Column.percent(columns.get(k), labels.get(k)));
+        }
+        Optional<double[]> held = res.holdings();
+        held.ifPresent(h -> wt.column(Table.Column.percent("current", CURRENT)));
+        for (int i = 0; i < n; i++) {
+            List<Object> row = new ArrayList<>();
+            row.add(assets.get(i));
+            for (Solution s : sols) {
+                row.add(s.weight(i));
+            }
+            if (held.isPresent()) {
+                row.add(held.get()[i]);
+            }
+            wt.row(row.toArray());
+        }
+
+        Optional<Table> frontier = Optional.empty();
+        if (!res.frontier().points().isEmpty()) {
+            Table.Builder ft = Table.builder("frontier", "Efficient frontier (sampled)")
+                    .column(Table.Column.text("point", "Point"))
+                    .column(Table.Column.percent("expected_return", "Expected return"))
+                    .column(Table.Column.percent("volatility", "Volatility"));
+            spec.riskFree().ifPresent(rf -> ft.column(Table.Column.decimal("sharpe_ratio", "Sharpe ratio")));
+            int k = 1;
+            for (Solution s : res.frontier().points()) {
+                if (spec.riskFree().isPresent()) {
+                    double rf = spec.riskFree().get();
+                    ft.row(Integer.toString(k++), s.expectedReturn(), s.volatility(),
+                            s.volatility() > 0 ? (s.expectedReturn() - rf) / s.volatility() : Double.NaN);
+                } else {
+                    ft.row(Integer.toString(k++), s.expectedReturn(), s.volatility());
+                }
+            }
+            frontier = Optional.of(ft.build());
+        }
+
+        double[] w = res.proposal().weights();
+        double[] marginal = res.risk().marginal();
+        double[] contribution = res.risk().component();
+        double vol = res.proposal().volatility();
+        Table.Builder rt = Table.builder("risk", "Risk of the proposal")
+                .column(Table.Column.text("asset", "Asset"))
+                .column(Table.Column.percent("weight", "Weight"))
+                .column(Table.Column.percent("marginal_risk", "Marginal risk"))
+                .column(Table.Column.percent("contribution", "Contribution to volatility"))
+                .column(Table.Column.percent("share", "Share of volatility"));
+        for (int i = 0; i < n; i++) {
+            rt.row(assets.get(i), w[i], marginal[i], contribution[i], vol > 0 ? contribution[i] / vol : Double.NaN);
+        }
+
+        Optional<Table> trades = res.holdings().map(h -> trades(assets, h, w, spec));
+
+        List<PackContent.Parameter> parameters = new ArrayList<>(r.parameters());
+        parameters.add(new PackContent.Parameter("Targets", String.join(", ",
+                spec.targets().stream().map(Explain::percent).toList())));
+        parameters.add(new PackContent.Parameter("Proposed target", Explain.percent(spec.proposed())));
+        spec.riskFree().ifPresent(rf -> parameters.add(new PackContent.Parameter("Risk-free rate", Explain.percent(rf))));
+        parameters.add(new PackContent.Parameter("Frontier points", Integer.toString(spec.frontierPoints())));
+
+        PackContent.RunRecord run = new PackContent.RunRecord(r.toolVersion(), r.created(), parameters, r.inputs(),
+                new ArrayList<>(runNotes));
+        return new PackContent(heading, assumptions, MandateWords.describe(r.mandate(), assets), portfolios, frontier,
+                wt.build(), rt.build(), binding, cons.build(), charts, trades, List.of(), run);
+    }
+
+    private static Table trades(List<String> assets, double[] current, double[] proposed, PackSpec spec) {
+        Table.Builder b = Table.builder("trades", "Trades from the current holdings")
+                .column(Table.Column.text("asset", "Asset"))
+                .column(Table.Column.percent("current", "Current"))
+                .column(Table.Column.percent("proposed", "Proposed"))
+                .column(Table.Column.percent("change", "Change"));
+        spec.fundSize().ifPresent(f -> b.column(Table.Column.amount("amount", "Amount (" + spec.currency() + ")")));
+        for (int i = 0; i < assets.size(); i++) {
+            double change = proposed[i] - current[i];
+            if (spec.fundSize().isPresent()) {
+                b.row(assets.get(i), current[i], proposed[i], change, change * spec.fundSize().get());
+            } else {
+                b.row(assets.get(i), current[i], proposed[i], change);
+            }
+        }
+        return b.build();
+    }
+
+    private static PackContent.Pair pair(Correlations.Pair p) {
+        return p == null ? null : new PackContent.Pair(p.first(), p.second(), p.correlation());
+    }
+
+    /** One line on a certificate, e.g. "largest KKT residual 2.1e-16 (tolerance 1e-10): passes". */
+    static String certificateLine(Certificate c) {
+        return String.format(Locale.ROOT, "largest KKT residual %.1e (tolerance %.0e)%s: %s", c.worst(), c.threshold(),
+                c.convex() ? "" : ", covariance not positive semi-definite", c.passes() ? "passes" : "ABOVE TOLERANCE");
+    }
+
+    /** Python-friendly, unique column keys from asset names: "Government Bonds" → "government_bonds". */
+    static List<String> columnKeys(List<String> names) {
+        List<String> out = new ArrayList<>();
+        Set<String> seen = new HashSet<>(Set.of("asset"));
+        for (int i = 0; i < names.size(); i++) {
+            String k = Normalizer.normalize(names.get(i), Normalizer.Form.NFKD).toLowerCase(Locale.ROOT)
+                    .replaceAll("[^a-z0-9]+", "_").replaceAll("^_+|_+$", "");
+            if (k.isEmpty() || !Character.isLetter(k.charAt(0))) {
+                k = "asset_" + (i + 1) + (k.isEmpty() ? "" : "_" + k);
+            }
+            if (k.length() > 50) {
+                k = k.substring(0, 50);
+            }
+            String base = k;
+            for (int d = 2; !seen.add(k); d++) {
+                k = base + "_" + d;
+            }
+            out.add(k);
+        }
+        return out;
+    }
+}
