@@ -4,7 +4,6 @@ import java.math.BigDecimal;
 import java.util.List;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.model.LinearConstraint;
-import org.isorisk.engine.model.Relation;
 import org.ojalgo.optimisation.Expression;
 import org.ojalgo.optimisation.ExpressionsBasedModel;
 import org.ojalgo.optimisation.Optimisation;
@@ -31,7 +30,8 @@ public final class Lp {
     /**
      * Solves {@code max c'x} ({@code maximise = true}) or {@code min c'x}.
      *
-     * @throws NoSolutionException (INFEASIBLE) when no point satisfies the rows and bounds, or when unbounded
+     * @return the optimum; value ±∞ (and a zero point) when the objective is unbounded
+     * @throws NoSolutionException (INFEASIBLE) when no point satisfies the rows and bounds
      */
     public static Result optimise(double[] c, List<LinearConstraint> rows, double[] lo, double[] hi, boolean maximise) {
         int p = c.length;
@@ -64,6 +64,9 @@ public final class Lp {
             }
         }
         Optimisation.Result r = maximise ? model.maximise() : model.minimise();
+        if (r.getState() == Optimisation.State.UNBOUNDED) {
+            return new Result(maximise ? Double.POSITIVE_INFINITY : Double.NEGATIVE_INFINITY, new double[p]);
+        }
         if (!r.getState().isOptimal()) {
             throw new NoSolutionException(NoSolutionException.Reason.INFEASIBLE,
                     "the linear programme has no optimum (" + r.getState() + ")",
@@ -77,10 +80,5 @@ public final class Lp {
             val += c[j] * x[j];
         }
         return new Result(val, x);
-    }
-
-    /** Relation names for messages. */
-    static String symbol(Relation r) {
-        return r.symbol();
     }
 }
