@@ -21,9 +21,13 @@ final class OjAlgoLiftedSolver implements LiftedSolver {
     public QpPoint solve(Lifted p, QpPoint warm) {
         int dim = p.size();
         double[][] h = p.hessian();
+        double eps = p.regularisation();
+        for (int i = 0; i < dim; i++) {
+            h[i][i] += eps;
+        }
         R064Store q = R064Store.FACTORY.make(dim, dim);
-        for (int i = 0; i < p.n; i++) {
-            for (int j = 0; j < p.n; j++) {
+        for (int i = 0; i < dim; i++) {
+            for (int j = 0; j < dim; j++) {
                 q.set(i, j, 2 * h[i][j]);
             }
         }

@@ -22,10 +22,10 @@ import org.isorisk.engine.solve.Kkt;
  * <p>Formulation: split buy/sell variables {@code w = w0 + b − s, b, s ≥ 0}; turnover {@code 1'(b + s) ≤ τ}
  * (two-way); per-asset limits {@code b_i, s_i ≤ T_i}; costs deducted from the return the target must reach,
  * {@code μ'w − c'(b + s) ≥ m}; assets on the no-trade list or frozen by the minimum-trade rule have
- * {@code b_i = s_i = 0}. The objective {@code w'Σw} has a positive semi-definite, singular Hessian in the lifted
- * variables; the certificate is the KKT certificate of this lifted problem, which is the original problem
- * (turnover {@code Σ|w − w0|} and costs are exactly {@code 1'(b + s)} and {@code c'(b + s)} once idle round trips
- * are netted out).
+ * {@code b_i = s_i = 0}. w is eliminated ({@link Lifted}); the objective has a positive semi-definite, singular
+ * Hessian in (b, s). The certificate is the KKT certificate of this lifted problem without any regularisation,
+ * which is the original problem: turnover {@code Σ|w − w0|} and costs are exactly {@code 1'(b + s)} and
+ * {@code c'(b + s)} once idle round trips are netted out.
  */
 public final class Rebalancer {
     private Rebalancer() {
@@ -147,6 +147,9 @@ public final class Rebalancer {
 
         Solved solve(boolean[] frozen, Double target) {
             Lifted p = new Lifted(u, m, w0, lim, frozen, target);
+            if (p.emptyBox()) {
+                throw emptyBox(p);
+            }
             QpPoint pt;
             try {
                 pt = solver.solve(p, warm);
@@ -181,24 +184,17 @@ public final class Rebalancer {
             return v;
         }
 
-        double netReturn(double[] x) {
-            double r = 0;
-            for (int i = 0; i < n; i++) {
-                r += mu[i] * x[i] - lim.cost(i) * (x[n + i] + x[2 * n + i]);
-            }
-            return r;
+        double netReturn(double[] y, Lifted p) {
+            return p.netReturn(y);
         }
 
         /** Highest net return reachable within mandate and limits (LP). */
         double maxNetReturn(boolean[] frozen) {
             Lifted p = new Lifted(u, m, w0, lim, frozen, null);
-            double[] c = new double[p.size()];
-            for (int i = 0; i < n; i++) {
-                c[i] = mu[i];
-                c[n + i] = -lim.cost(i);
-                c[2 * n + i] = -lim.cost(i);
+            if (p.emptyBox()) {
+                throw emptyBox(p);
             }
-            return Lp.optimise(c, p.rows, p.lower, p.upper, true).value();
+            return p.base + Lp.optimise(p.netMu, p.rows, p.lower, p.upper, true).value();
         }
 
         Solved sameRisk(boolean[] frozen) {
@@ -212,7 +208,7 @@ public final class Rebalancer {
                         Breaches.pct(Math.sqrt(vLow)), Breaches.pct(sigma0)));
                 return low;
             }
-            double mLo = netReturn(low.x);
+            double mLo = netReturn(low.x, low.p);
             double mHi = maxNetReturn(frozen);
             if (mHi <= mLo) {
                 return low;
@@ -264,7 +260,7 @@ public final class Rebalancer {
 
         Solved nearest(boolean[] frozen) {
             Solved low = solve(frozen, null);
-            double mLo = netReturn(low.x);
+            double mLo = netReturn(low.x, low.p);
             double mHi = maxNetReturn(frozen);
             if (!(mHi > mLo + 1e-12)) {
                 notes.add("Nearest: the efficient branch is a single point within the limits.");
@@ -337,6 +333,25 @@ public final class Rebalancer {
             return Math.sqrt(Math.max(0, variance(d)));
         }
 
+        /** A breached bound that the trade limit or the no-trade list does not let the proposal cure. */
+        NoSolutionException emptyBox(Lifted p) {
+            for (int i = 0; i < n; i++) {
+                double need = Math.max(p.lower[i], -p.upper[n + i]);
+                boolean buy = p.lower[i] > 0;
+                if (p.lower[i] > p.upper[i] || p.lower[n + i] > p.upper[n + i]) {
+                    String a = u.assets().get(i);
+                    String what = lim.noTrade().contains(i) ? "it is on the no-trade list"
+                            : "its trade limit is " + Breaches.pct(lim.maxTrade(i));
+                    return new NoSolutionException(NoSolutionException.Reason.INFEASIBLE, String.format(Locale.ROOT,
+                            "%s is %s its %s today and needs a %s of at least %s to comply, but %s; fix: allow the "
+                                    + "trade (raise its trade limit or take it off the no-trade list)", a,
+                            buy ? "below" : "above", buy ? "minimum" : "maximum", buy ? "purchase" : "sale",
+                            Breaches.pct(need), what), List.of((buy ? "lower:" : "upper:") + a));
+                }
+            }
+            throw new IllegalStateException("no empty box");
+        }
+
         /** Turns an infeasible lifted problem into a message that says which limit is in the way. */
         NoSolutionException diagnose(Lifted p, boolean[] frozen, Double target, NoSolutionException e) {
             if (e.reason() != NoSolutionException.Reason.INFEASIBLE) {
@@ -344,8 +359,14 @@ public final class Rebalancer {
             }
             // 1. Can the mandate be met at all within the per-asset limits, and with how much turnover?
             Lifted free = new Lifted(u, m, w0, lim.withMaxTurnover(Double.POSITIVE_INFINITY), frozen, null);
+            if (free.emptyBox()) {
+                return emptyBox(free);
+            }
             double[] c = new double[free.size()];
-            Arrays.fill(c, n, 3 * n, 1.0);
+            for (int i = 0; i < n; i++) {
+                c[i] = 1;
+                c[n + i] = -1;
+            }
             double need;
             try {
                 need = Lp.optimise(c, free.rows, free.lower, free.upper, false).value();
@@ -410,7 +431,9 @@ public final class Rebalancer {
                 trades.add(new Trade(u.assets().get(i), w0[i], w0[i] + d, d, d * size, ci, side, why[i]));
             }
             double turnover = buys + sells;
-            Spectrum sp = Spectrum.of(u.covariance());
+            double[][] sigma = u.covariance();
+            org.isorisk.engine.linalg.Cholesky ch = org.isorisk.engine.linalg.Cholesky.factor(sigma);
+            Spectrum sp = ch == null ? Spectrum.of(sigma) : Spectrum.of(sigma, ch);
             Certificate cert = Kkt.certify(p.hessian(), x, p.rows, pr.rowPrices(), p.lower, p.upper,
                     pr.lowerPrices(), pr.upperPrices(), sp.conditionNumber(), req.settings().numericalTolerance(),
                     sp.smallest() >= -1e-12 * Math.max(1, sp.largest()));
@@ -434,37 +457,73 @@ public final class Rebalancer {
                     tp, binding, sentences, frozenMin, rounds, solNotes);
         }
 
-        List<Multiplier> multipliers(Lifted p, double[] x, QpPoint pr, double vol, String[] why) {
+        /**
+         * The multipliers of the original limits from those of the lifted problem: rows map one to one; a bound of
+         * a buy or sell variable is the asset's bound, its trade limit or its freeze, whichever gave it.
+         */
+        List<Multiplier> multipliers(Lifted p, double[] y, QpPoint pr, double vol, String[] why) {
             List<Multiplier> out = new ArrayList<>();
             double[] rp = pr.rowPrices();
+            double[] lp = pr.lowerPrices();
+            double[] up = pr.upperPrices();
+            double[] w = p.weights(y);
             for (int k = 0; k < p.mandateRows; k++) {
-                out.add(row(p.rows.get(k), x, rp[k], vol));
+                out.add(row(p.rows.get(k), y, rp[k], vol));
+            }
+            for (var e : m.fixed().entrySet()) {
+                int i = e.getKey();
+                // w_i = f: both bounds of b_i and s'_i are tight; ∂V*/∂f is the sum of the active bounds' prices
+                double price = lp[i] + up[i] + lp[n + i] + up[n + i];
+                out.add(mult("fixed:" + u.assets().get(i), price, vol, true));
             }
             for (int i = 0; i < n; i++) {
-                String a = u.assets().get(i);
-                if (Double.isFinite(p.lower[i])) {
-                    out.add(mult("lower:" + a, pr.lowerPrices()[i], vol, x[i] - p.lower[i] <= BINDING));
+                if (m.fixed().containsKey(i)) {
+                    continue;
                 }
-                if (Double.isFinite(p.upper[i])) {
-                    out.add(mult("upper:" + a, pr.upperPrices()[i], vol, p.upper[i] - x[i] <= BINDING));
+                String a = u.assets().get(i);
+                int k = n + i;
+                if (Double.isFinite(m.lower(i))) {
+                    double price = 0;
+                    if (p.lowerSource[i] == Lifted.Source.ASSET_LOWER) {
+                        price += lp[i];
+                    }
+                    if (p.lowerSource[k] == Lifted.Source.ASSET_LOWER) {
+                        price += lp[k];
+                    }
+                    out.add(mult("lower:" + a, price, vol, w[i] - m.lower(i) <= BINDING));
+                }
+                if (Double.isFinite(m.upper(i))) {
+                    double price = 0;
+                    if (p.upperSource[i] == Lifted.Source.ASSET_UPPER) {
+                        price += up[i];
+                    }
+                    if (p.upperSource[k] == Lifted.Source.ASSET_UPPER) {
+                        price += up[k];
+                    }
+                    out.add(mult("upper:" + a, price, vol, m.upper(i) - w[i] <= BINDING));
                 }
             }
             if (p.turnoverRow >= 0) {
-                out.add(row(p.rows.get(p.turnoverRow), x, rp[p.turnoverRow], vol));
+                out.add(row(p.rows.get(p.turnoverRow), y, rp[p.turnoverRow], vol));
             }
             if (p.targetRow >= 0) {
-                out.add(row(p.rows.get(p.targetRow), x, rp[p.targetRow], vol));
+                out.add(row(p.rows.get(p.targetRow), y, rp[p.targetRow], vol));
             }
             for (int i = 0; i < n; i++) {
                 String a = u.assets().get(i);
-                double hb = pr.upperPrices()[n + i];
-                double hs = pr.upperPrices()[2 * n + i];
+                int k = n + i;
+                // ∂V*/∂T: T is the upper bound of b_i and minus the lower bound of s'_i
+                double buyPrice = p.upperSource[i] == Lifted.Source.TRADE_LIMIT
+                        || p.upperSource[i] == Lifted.Source.FROZEN ? up[i] : 0;
+                double sellPrice = p.lowerSource[k] == Lifted.Source.TRADE_LIMIT
+                        || p.lowerSource[k] == Lifted.Source.FROZEN ? -lp[k] : 0;
                 if (why[i] != null) {
                     // the price of the more useful direction: ∂V* per unit of trade allowed that way
-                    out.add(mult(why[i].replace('-', '_') + ":" + a, Math.min(hb, hs), vol, true));
+                    out.add(mult(why[i].replace('-', '_') + ":" + a, Math.min(buyPrice, sellPrice), vol, true));
                 } else if (Double.isFinite(lim.maxTrade(i))) {
-                    boolean bind = lim.maxTrade(i) - x[n + i] <= BINDING || lim.maxTrade(i) - x[2 * n + i] <= BINDING;
-                    out.add(mult("trade_limit:" + a, hb + hs, vol, bind));
+                    boolean bind = (p.upperSource[i] == Lifted.Source.TRADE_LIMIT && p.upper[i] - y[i] <= BINDING)
+                            || (p.lowerSource[k] == Lifted.Source.TRADE_LIMIT && y[k] - p.lower[k] <= BINDING);
+                    out.add(mult("trade_limit:" + a, buyPrice + sellPrice, vol, bind));
                 }
             }
             return out;
