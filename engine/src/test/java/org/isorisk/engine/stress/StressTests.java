@@ -20,30 +20,8 @@ import org.junit.jupiter.api.Test;
 
 class StressTests {
 
-    /** An invented universe of n assets with a random positive definite covariance (fixed seed). */
     static AssetUniverse randomUniverse(int n, long seed) {
-        Random rnd = new Random(seed);
-        double[][] f = new double[n][3];
-        for (double[] row : f) {
-            for (int k = 0; k < 3; k++) {
-                row[k] = 0.1 * rnd.nextGaussian();
-            }
-        }
-        double[][] s = new double[n][n];
-        double[] mu = new double[n];
-        List<String> names = new ArrayList<>();
-        for (int i = 0; i < n; i++) {
-            names.add("Asset " + (i + 1));
-            mu[i] = 0.01 + 0.08 * rnd.nextDouble();
-            for (int j = 0; j < n; j++) {
-                double v = 0;
-                for (int k = 0; k < 3; k++) {
-                    v += f[i][k] * f[j][k];
-                }
-                s[i][j] = v + (i == j ? 0.002 + 0.02 * rnd.nextDouble() : 0);
-            }
-        }
-        return new AssetUniverse(names, mu, s);
+        return org.isorisk.engine.TestUniverses.random(n, seed);
     }
 
     @Test
