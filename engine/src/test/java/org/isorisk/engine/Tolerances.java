@@ -5,12 +5,12 @@ public final class Tolerances {
     private Tolerances() {
     }
 
-    /** Round-off level of exact identities in double precision. */
+    /** Agreement expected from exact arithmetic done in double precision. */
     public static final double TIGHT = 1e-12;
-    /** What a closed-form (Cholesky) solve promises. */
+    /** Closed-form solutions against each other or a reference formula. */
     public static final double CLOSED_FORM = 1e-10;
-    /** What an iterative or active-set method promises. */
+    /** Iterative or numerical methods, finite differences. */
     public static final double NUMERICAL = 1e-7;
-    /** General comparisons. */
+    /** Everything else. */
     public static final double GENERAL = 1e-8;
 }

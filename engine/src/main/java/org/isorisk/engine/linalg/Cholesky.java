@@ -1,56 +1,256 @@
 package org.isorisk.engine.linalg;
 
+
 /**
- * Cholesky factor {@code Σ = L L'} of a symmetric positive definite matrix, with solves.
- * The factor is stored row-major in a flat array (lower triangle used).
+ * Cholesky factor {@code Σ = L L'} of a symmetric positive definite matrix, with single and multiple
+ * right-hand-side solves.
+ *
+ * <p>The factorisation is the right-looking blocked algorithm (block size {@link #BLOCK}): factor the
+ * diagonal block, solve the panel below it against that block, then subtract the panel's outer product
+ * from the trailing lower triangle. It performs the same operations as the textbook algorithm in a
+ * different order, so it is backward stable in the same sense (Higham, "Accuracy and Stability of Numerical
+ * Algorithms", 2nd ed., 2002, theorem 10.3: the computed factor is the exact factor of {@code Σ + ΔΣ} with
+ * {@code |ΔΣ| ≤ γ_{n+1}|L||L'|}).
+ *
+ * <p>Layout, and why: L is stored by rows, each row its own array of length {@code i + 1} (lower triangle
+ * only, half the memory of a square array). The trailing update walks each row as an axpy against a
+ * transposed copy of the panel whose rows are indexed by the same column {@code j}; written that way the
+ * HotSpot C2 compiler of Java 17 turns the inner loop into AVX/AVX-512 vector code. The same loop over one
+ * flat row-major array (row offsets {@code i*n + j}) was measured about three times slower, because the
+ * compiler cannot prove that differently offset accesses of one array do not overlap and keeps it scalar.
+ * The trailing update and the panel solve are split by rows (balanced by work) over a small shared pool of
+ * daemon threads when the matrix is large. The columns of L are kept as well (built from the panels as they
+ * are solved), so that the forward solve, like the backward one, runs as vectorised axpy loops; this costs
+ * n² more doubles of memory.
+ *
+ * <p>Instances are immutable and safe to share between threads.
  */
 public final class Cholesky {
-    private final int n;
-    private final double[] l;
+    /**
+     * Block size (columns per panel). 64 balances the panel solve (scalar-heavy, cost ∝ n²·block) against
+     * the trailing update's reuse of each loaded row (∝ n³/block memory traffic); measured best among
+     * 32–128 on a 2-core AVX-512 machine at n = 500–2000.
+     */
+    public static final int BLOCK = 64;
 
-    private Cholesky(int n, double[] l) {
+    /**
+     * Column tile of the trailing update: the panel slice a row is updated against (BLOCK × TILE doubles,
+     * 256 KiB) stays in a core's L2 cache while the rows stream past it.
+     */
+    static final int TILE = 512;
+
+    /** Below this size the factorisation runs on the calling thread only; fork/join would cost more. */
+    public static final int PARALLEL_MIN = 384;
+
+    private final int n;
+    /** Row i holds L[i][0..i]. */
+    private final double[][] l;
+    /** Row j holds column j of L, L[i][j] at index i ≥ j (zeros before): the forward solve runs along it. */
+    private final double[][] lt;
+
+    private Cholesky(int n, double[][] l, double[][] lt) {
         this.n = n;
         this.l = l;
+        this.lt = lt;
     }
 
     /**
-     * Factors {@code a} (not modified; only the lower triangle is read).
+     * Factors {@code a} using as many threads as the machine has processors.
      *
+     * @param a symmetric matrix (not modified; only the lower triangle is read)
      * @return the factor, or null when a pivot is not positive (the matrix is not positive definite)
      */
     public static Cholesky factor(double[][] a) {
-        int n = a.length;
-        double[] l = new double[n * n];
-        for (int i = 0; i < n; i++) {
-            System.arraycopy(a[i], 0, l, i * n, i + 1);
-        }
-        return factorInPlace(n, l) ? new Cholesky(n, l) : null;
+        return factor(a, Runtime.getRuntime().availableProcessors());
     }
 
-    /** Row-oriented left-looking factorisation: row i of L from rows 0..i-1. */
-    private static boolean factorInPlace(int n, double[] l) {
+    /**
+     * Factors {@code a} with at most {@code threads} threads (the calling one included).
+     *
+     * @param a       symmetric matrix (not modified; only the lower triangle is read)
+     * @param threads worker threads for large matrices, at least 1
+     * @return the factor, or null when a pivot is not positive or not finite (not positive definite)
+     */
+    public static Cholesky factor(double[][] a, int threads) {
+        int n = a.length;
+        double[][] l = new double[n][];
         for (int i = 0; i < n; i++) {
-            int ri = i * n;
-            for (int j = 0; j <= i; j++) {
-                int rj = j * n;
-                double s = l[ri + j];
-                for (int k = 0; k < j; k++) {
-                    s -= l[ri + k] * l[rj + k];
+            if (a[i].length < i + 1) {
+                throw new IllegalArgumentException("row " + i + " is shorter than the lower triangle needs");
+            }
+            l[i] = java.util.Arrays.copyOf(a[i], i + 1);
+        }
+        int t = n >= PARALLEL_MIN ? Math.max(1, threads) : 1;
+        double[][] lt = new double[n][];
+        return factorInPlace(n, l, lt, t) ? new Cholesky(n, l, lt) : null;
+    }
+
+    private static boolean factorInPlace(int n, double[][] l, double[][] lt, int threads) {
+        double[][] panel = n > BLOCK ? new double[BLOCK][n] : null;
+        for (int start = 0; start < n; start += BLOCK) {
+            int k0 = start;
+            int kb = Math.min(BLOCK, n - k0);
+            if (!factorDiagonalBlock(l, k0, kb)) {
+                return false;
+            }
+            int k1 = k0 + kb;
+            for (int p = 0; p < kb; p++) {
+                double[] column = new double[n];
+                for (int i = k0 + p; i < k1; i++) {
+                    column[i] = l[i][k0 + p];
+                }
+                lt[k0 + p] = column;
+            }
+            if (k1 == n) {
+                break;
+            }
+            // Transposed panel: panel[p][i] = A[i][k0+p] for i ≥ k1, then solved in place to L[i][k0+p].
+            int[] cols = Workers.split(k1, n, threads, false);
+            Workers.run(threads, part -> packAndSolvePanel(l, lt, panel, k0, kb, cols[part], cols[part + 1]));
+            int[] rows = Workers.split(k1, n, threads, true);
+            Workers.run(threads, part -> updateTrailing(l, panel, k0, kb, k1, rows[part], rows[part + 1]));
+        }
+        return true;
+    }
+
+    /** Unblocked left-looking factor of the diagonal block (rows and columns k0..k0+kb−1). */
+    private static boolean factorDiagonalBlock(double[][] l, int k0, int kb) {
+        for (int i = k0; i < k0 + kb; i++) {
+            double[] ri = l[i];
+            for (int j = k0; j <= i; j++) {
+                double[] rj = l[j];
+                double s = ri[j];
+                for (int p = k0; p < j; p++) {
+                    s -= ri[p] * rj[p];
                 }
                 if (j < i) {
-                    l[ri + j] = s / l[rj + j];
+                    ri[j] = s / rj[j];
                 } else {
                     if (!(s > 0) || !Double.isFinite(s)) {
                         return false;
                     }
-                    l[ri + i] = Math.sqrt(s);
+                    ri[i] = Math.sqrt(s);
                 }
-            }
-            for (int j = i + 1; j < n; j++) {
-                l[ri + j] = 0;
             }
         }
         return true;
+    }
+
+    /**
+     * For rows {@code from..to−1} (all ≥ k0+kb): copies their block columns into the transposed panel, solves
+     * {@code X L11' = A21} column-wise (forward substitution on panel rows, an axpy per step) and writes the
+     * result back into the rows of L and into the columns kept for the forward solve.
+     */
+    private static void packAndSolvePanel(double[][] l, double[][] lt, double[][] panel, int k0, int kb, int from,
+                                          int to) {
+        // Transpose four rows at a time so that each panel row receives four adjacent entries per visit.
+        int i4 = from;
+        for (; i4 + 3 < to; i4 += 4) {
+            double[] r0 = l[i4];
+            double[] r1 = l[i4 + 1];
+            double[] r2 = l[i4 + 2];
+            double[] r3 = l[i4 + 3];
+            for (int p = 0; p < kb; p++) {
+                double[] q = panel[p];
+                q[i4] = r0[k0 + p];
+                q[i4 + 1] = r1[k0 + p];
+                q[i4 + 2] = r2[k0 + p];
+                q[i4 + 3] = r3[k0 + p];
+            }
+        }
+        for (int i = i4; i < to; i++) {
+            double[] ri = l[i];
+            for (int p = 0; p < kb; p++) {
+                panel[p][i] = ri[k0 + p];
+            }
+        }
+        for (int j = 0; j < kb; j++) {
+            double[] lj = l[k0 + j];
+            double[] pj = panel[j];
+            int p = 0;
+            for (; p + 3 < j; p += 4) {
+                double c0 = lj[k0 + p];
+                double c1 = lj[k0 + p + 1];
+                double c2 = lj[k0 + p + 2];
+                double c3 = lj[k0 + p + 3];
+                double[] q0 = panel[p];
+                double[] q1 = panel[p + 1];
+                double[] q2 = panel[p + 2];
+                double[] q3 = panel[p + 3];
+                for (int i = from; i < to; i++) {
+                    pj[i] -= c0 * q0[i] + c1 * q1[i] + c2 * q2[i] + c3 * q3[i];
+                }
+            }
+            for (; p < j; p++) {
+                double c0 = lj[k0 + p];
+                double[] q0 = panel[p];
+                for (int i = from; i < to; i++) {
+                    pj[i] -= c0 * q0[i];
+                }
+            }
+            double inv = 1.0 / lj[k0 + j];
+            for (int i = from; i < to; i++) {
+                pj[i] *= inv;
+            }
+        }
+        for (int p = 0; p < kb; p++) {
+            System.arraycopy(panel[p], from, lt[k0 + p], from, to - from);
+        }
+        i4 = from;
+        for (; i4 + 3 < to; i4 += 4) {
+            double[] r0 = l[i4];
+            double[] r1 = l[i4 + 1];
+            double[] r2 = l[i4 + 2];
+            double[] r3 = l[i4 + 3];
+            for (int p = 0; p < kb; p++) {
+                double[] q = panel[p];
+                r0[k0 + p] = q[i4];
+                r1[k0 + p] = q[i4 + 1];
+                r2[k0 + p] = q[i4 + 2];
+                r3[k0 + p] = q[i4 + 3];
+            }
+        }
+        for (int i = i4; i < to; i++) {
+            double[] ri = l[i];
+            for (int p = 0; p < kb; p++) {
+                ri[k0 + p] = panel[p][i];
+            }
+        }
+    }
+
+    /**
+     * Trailing update of rows {@code from..to−1}: {@code A[i][j] −= Σ_p L[i][k0+p] L[j][k0+p]} for
+     * {@code k1 ≤ j ≤ i}, column tile by column tile, four panel columns per pass.
+     */
+    private static void updateTrailing(double[][] l, double[][] panel, int k0, int kb, int k1, int from, int to) {
+        for (int j0 = k1; j0 < to; j0 += TILE) {
+            int j1 = Math.min(j0 + TILE, to);
+            for (int i = Math.max(from, j0); i < to; i++) {
+                double[] ri = l[i];
+                int end = Math.min(j1, i + 1);
+                int p = 0;
+                for (; p + 3 < kb; p += 4) {
+                    double a0 = ri[k0 + p];
+                    double a1 = ri[k0 + p + 1];
+                    double a2 = ri[k0 + p + 2];
+                    double a3 = ri[k0 + p + 3];
+                    double[] q0 = panel[p];
+                    double[] q1 = panel[p + 1];
+                    double[] q2 = panel[p + 2];
+                    double[] q3 = panel[p + 3];
+                    for (int j = j0; j < end; j++) {
+                        ri[j] -= a0 * q0[j] + a1 * q1[j] + a2 * q2[j] + a3 * q3[j];
+                    }
+                }
+                for (; p < kb; p++) {
+                    double a0 = ri[k0 + p];
+                    double[] q0 = panel[p];
+                    for (int j = j0; j < end; j++) {
+                        ri[j] -= a0 * q0[j];
+                    }
+                }
+            }
+        }
     }
 
     /** Matrix size. */
@@ -60,38 +260,78 @@ public final class Cholesky {
 
     /** Entry (i, j) of L (zero above the diagonal). */
     public double factorEntry(int i, int j) {
-        return j > i ? 0 : l[i * n + j];
+        return j > i ? 0 : l[i][j];
     }
 
     /** Solves {@code Σ x = b}; {@code b} is not modified. */
     public double[] solve(double[] b) {
+        checkLength(b);
         double[] x = b.clone();
         forward(x);
         backward(x);
         return x;
     }
 
-    /** Solves {@code L y = b} in place. */
-    public void forward(double[] x) {
+    /**
+     * Solves {@code Σ X = B} for several right-hand sides at once: each row and column of the factor is fetched
+     * from memory once for all of them and reused from cache.
+     *
+     * @param rhs right-hand sides, each of length n (not modified)
+     * @return the solutions, in the order of {@code rhs}
+     */
+    public double[][] solve(double[][] rhs) {
+        double[][] x = new double[rhs.length][];
+        for (int c = 0; c < rhs.length; c++) {
+            checkLength(rhs[c]);
+            x[c] = rhs[c].clone();
+        }
         for (int i = 0; i < n; i++) {
-            int ri = i * n;
-            double s = x[i];
-            for (int k = 0; k < i; k++) {
-                s -= l[ri + k] * x[k];
+            double[] col = lt[i];
+            double d = col[i];
+            for (double[] xc : x) {
+                double xi = xc[i] / d;
+                xc[i] = xi;
+                axpy(-xi, col, xc, i + 1, n);
             }
-            x[i] = s / l[ri + i];
+        }
+        for (int i = n - 1; i >= 0; i--) {
+            double[] row = l[i];
+            double d = row[i];
+            for (double[] xc : x) {
+                double xi = xc[i] / d;
+                xc[i] = xi;
+                axpy(-xi, row, xc, 0, i);
+            }
+        }
+        return x;
+    }
+
+    /** Solves {@code L y = b} in place, column by column of L (an axpy per column, vectorised). */
+    public void forward(double[] x) {
+        checkLength(x);
+        for (int i = 0; i < n; i++) {
+            double[] col = lt[i];
+            double xi = x[i] / col[i];
+            x[i] = xi;
+            axpy(-xi, col, x, i + 1, n);
         }
     }
 
-    /** Solves {@code L' x = y} in place. */
+    /** Solves {@code L' x = y} in place, row by row of L (an axpy per row, vectorised). */
     public void backward(double[] x) {
+        checkLength(x);
         for (int i = n - 1; i >= 0; i--) {
-            x[i] /= l[i * n + i];
-            double xi = x[i];
-            int ri = i * n;
-            for (int k = 0; k < i; k++) {
-                x[k] -= l[ri + k] * xi;
-            }
+            double[] row = l[i];
+            double xi = x[i] / row[i];
+            x[i] = xi;
+            axpy(-xi, row, x, 0, i);
+        }
+    }
+
+    /** {@code y[from..to) += c · x[from..to)}. */
+    private static void axpy(double c, double[] x, double[] y, int from, int to) {
+        for (int k = from; k < to; k++) {
+            y[k] += c * x[k];
         }
     }
 
@@ -99,8 +339,14 @@ public final class Cholesky {
     public double minPivot() {
         double m = Double.POSITIVE_INFINITY;
         for (int i = 0; i < n; i++) {
-            m = Math.min(m, l[i * n + i]);
+            m = Math.min(m, l[i][i]);
         }
         return m;
+    }
+
+    private void checkLength(double[] v) {
+        if (v.length != n) {
+            throw new IllegalArgumentException("vector of length " + v.length + " for a factor of size " + n);
+        }
     }
 }

@@ -106,10 +106,16 @@ public record Mandate(double budget, double[] lower, double[] upper, Map<Integer
         return false;
     }
 
-    /** True when groups or inequality rows are present (beyond simple bounds). */
+    /**
+     * True when inequality rows are present beyond simple bounds: a group with a range (min below max) or a
+     * general constraint that is not an equality. A group whose min equals its max is the equality
+     * {@code group:<name>} and does not count.
+     */
     public boolean hasGeneralInequalities() {
-        if (!groups.isEmpty()) {
-            return true;
+        for (Group g : groups) {
+            if (g.min() != g.max()) {
+                return true;
+            }
         }
         for (LinearConstraint c : constraints) {
             if (c.relation() != Relation.EQUAL) {

@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Locale;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.error.NoSolutionException;
+import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.LinearConstraint;
@@ -47,7 +48,7 @@ public final class Allocator {
                                 + "policy has bounds or inequality limits")
                         .fix("drop --method closed-form (auto picks a bounded method) or remove the bounds").build();
             }
-            return closedForm(Factored.of(r.universe()), m, r.objective(), r);
+            return closedForm(Factored.of(r.universe(), r.settings()), m, r.objective(), r);
         }
         throw new NoSolutionException(NoSolutionException.Reason.NOT_CONVERGED,
                 "method " + method.label() + " is not available in this build", List.of());
@@ -66,15 +67,16 @@ public final class Allocator {
             rows.add(new LinearConstraint("target_return", u.expectedReturns(), Relation.EQUAL, target));
             notes.add(String.format(Locale.ROOT, "Tangency portfolio for a risk-free rate of %s: the frontier point "
                     + "with the highest Sharpe ratio, found as the minimum-variance portfolio at its return.",
-                    org.isorisk.engine.explain.Explain.percent(t.riskFree())));
+                    Explain.percent(t.riskFree())));
         }
         return ClosedForm.solve(f, rows, r.settings(), notes);
     }
 
     /**
-     * Return of the tangency portfolio on the frontier of the equality rows: maximises {@code (m − r_f)/σ*(m)}
-     * where {@code V*(m) = (αm² − 2βm + γ)} along the closed-form frontier; refuses when the risk-free rate is at
-     * or above the minimum-variance portfolio's return.
+     * Return of the tangency portfolio on the frontier of the equality rows: maximises the Sharpe ratio
+     * {@code (m − r_f b)/σ*(m)} (b the budget, so that {@code r_f b} is what the budget earns risk-free) along the
+     * closed-form frontier {@code V*(m) = αm² − 2βm + γ}; refuses when the risk-free rate is at or above the
+     * minimum-variance portfolio's return per unit of budget (for the budget alone, Merton's A/C).
      */
     private static double tangencyReturn(Factored f, Mandate m, List<LinearConstraint> rows, double rf,
                                          AllocationRequest r) {
@@ -92,16 +94,23 @@ public final class Allocator {
         double beta = -(v[2] - v[0]) / 4;
         double gamma = v[1];
         double mMin = beta / alpha; // return of the minimum-variance portfolio under these equalities
-        if (!(rf < mMin)) {
+        double budget = m.budget();
+        double rfb = rf * budget;
+        if (!(budget > 0)) {
+            throw new NoSolutionException(NoSolutionException.Reason.INFEASIBLE, String.format(Locale.ROOT,
+                    "no tangency portfolio: the budget is %s, and a maximum Sharpe ratio needs a positive budget; "
+                            + "fix: give a positive budget", Explain.percent(budget)), List.of("budget", "risk_free"));
+        }
+        double perUnit = mMin / budget;
+        if (!(rf < perUnit)) {
             throw new NoSolutionException(NoSolutionException.Reason.INFEASIBLE, String.format(Locale.ROOT,
                     "no tangency portfolio: the risk-free rate %s is at or above the minimum-variance portfolio's "
                             + "return %s, so no frontier portfolio earns a positive excess return per unit of risk on "
                             + "the efficient branch; fix: use a risk-free rate below %s",
-                    org.isorisk.engine.explain.Explain.percent(rf), org.isorisk.engine.explain.Explain.percent(mMin),
-                    org.isorisk.engine.explain.Explain.percent(mMin)), List.of("risk_free"));
+                    Explain.percent(rf), Explain.percent(perUnit), Explain.percent(perUnit)), List.of("risk_free"));
         }
-        // d/dm [(m − rf)/sqrt(V(m))] = 0  ⇔  V(m) = (m − rf) V'(m)/2  ⇔  m = (γ − β rf)/(β − α rf).
-        return (gamma - beta * rf) / (beta - alpha * rf);
+        // d/dm [(m − r_f b)/sqrt(V(m))] = 0  ⇔  V(m) = (m − r_f b) V'(m)/2  ⇔  m = (γ − β r_f b)/(β − α r_f b).
+        return (gamma - beta * rfb) / (beta - alpha * rfb);
     }
 
     /** Merton's (1972) frontier scalars A, B, C, D for the universe (budget-only frontier). */

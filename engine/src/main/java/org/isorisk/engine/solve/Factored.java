@@ -1,22 +1,37 @@
 package org.isorisk.engine.solve;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.linalg.Cholesky;
 import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.SolverSettings;
 
 /**
  * An asset universe with its covariance factored once, so that many closed-form solves (a frontier sweep,
- * several constraint sets) share one O(n³) factorisation.
+ * several constraint sets) share one O(n³) factorisation. Solutions {@code Σ⁻¹a} of constraint gradients are
+ * remembered (a sweep over return targets reuses Σ⁻¹1 and Σ⁻¹μ for every point). Safe to share between threads.
  */
 public final class Factored {
+    /**
+     * Σ counts as singular to working precision when {@code λmin ≤ SINGULAR · λmax}: its inverse would then
+     * carry no correct digit (condition number beyond 1/(n·ε) for n up to a few thousand assets).
+     */
+    public static final double SINGULAR = 1e-13;
+
+    /** Most remembered solves; past it the memory starts afresh (sweeps use two or three gradients). */
+    private static final int MEMO_LIMIT = 64;
+
     private final AssetUniverse universe;
     private final double[][] sigma;
     private final Cholesky chol;
     private final Spectrum spectrum;
+    private final Map<Key, double[]> memo = new ConcurrentHashMap<>();
 
     private Factored(AssetUniverse universe, double[][] sigma, Cholesky chol, Spectrum spectrum) {
         this.universe = universe;
@@ -26,19 +41,31 @@ public final class Factored {
     }
 
     /**
-     * Factors the universe's covariance.
+     * Factors the universe's covariance with the default settings (all processors).
      *
-     * @throws NoSolutionException (NOT_CONVEX) when Σ is not positive definite, naming the smallest eigenvalue
-     *                             and, when there is one, a pair of perfectly correlated assets
+     * @throws NoSolutionException (NOT_CONVEX) when Σ is not positive definite or singular to working precision,
+     *                             naming the smallest eigenvalue and, when there is one, a pair of perfectly
+     *                             correlated assets
      */
     public static Factored of(AssetUniverse u) {
+        return of(u, SolverSettings.defaults());
+    }
+
+    /**
+     * Factors the universe's covariance using {@link SolverSettings#threads()} threads.
+     *
+     * @throws NoSolutionException (NOT_CONVEX) as {@link #of(AssetUniverse)}
+     */
+    public static Factored of(AssetUniverse u, SolverSettings settings) {
         double[][] sigma = u.covariance();
-        Cholesky chol = Cholesky.factor(sigma);
+        Cholesky chol = Cholesky.factor(sigma, settings.threads());
         if (chol == null) {
-            Spectrum sp = Spectrum.of(sigma);
-            throw notPositiveDefinite(u, sigma, sp);
+            throw notPositiveDefinite(u, sigma, Spectrum.of(sigma, null));
         }
         Spectrum sp = Spectrum.of(sigma, chol);
+        if (!(sp.smallest() > SINGULAR * sp.largest())) {
+            throw notPositiveDefinite(u, sigma, sp);
+        }
         return new Factored(u, sigma, chol, sp);
     }
 
@@ -50,11 +77,14 @@ public final class Factored {
         for (int i = 0; i < n; i++) {
             for (int j = i + 1; j < n; j++) {
                 double d = Math.sqrt(sigma[i][i] * sigma[j][j]);
-                if (d > 0 && Math.abs(sigma[i][j] / d) >= 1 - 1e-10) {
+                double rho = d > 0 ? sigma[i][j] / d : 0;
+                if (Math.abs(rho) >= 1 - 1e-10) {
                     involved.add(u.assets().get(i));
                     involved.add(u.assets().get(j));
-                    pair = String.format(Locale.ROOT, "; assets '%s' and '%s' are perfectly correlated (%.6f)",
-                            u.assets().get(i), u.assets().get(j), sigma[i][j] / d);
+                    pair = String.format(Locale.ROOT, Math.abs(rho) <= 1 + 1e-10
+                                    ? "; assets '%s' and '%s' are perfectly correlated (%.6f)"
+                                    : "; assets '%s' and '%s' have correlation %.6f, outside [-1, 1]",
+                            u.assets().get(i), u.assets().get(j), rho);
                     break outer;
                 }
             }
@@ -65,10 +95,13 @@ public final class Factored {
                 pair = String.format(Locale.ROOT, "; asset '%s' has variance %s", u.assets().get(i), sigma[i][i]);
             }
         }
+        String smallest = Math.abs(sp.smallest()) <= SINGULAR * Math.abs(sp.largest())
+                ? "smallest eigenvalue 0 to working precision: singular"
+                : String.format(Locale.ROOT, "smallest eigenvalue %.6g", sp.smallest());
         String msg = String.format(Locale.ROOT,
-                "the covariance matrix is not positive definite (smallest eigenvalue %.6g)%s, so the minimum-variance "
+                "the covariance matrix is not positive definite (%s)%s, so the minimum-variance "
                         + "portfolio is not unique; fix: remove one of a perfectly correlated pair, or repair the "
-                        + "matrix to the nearest valid one (isorisk check --repair)", sp.smallest(), pair);
+                        + "matrix to the nearest valid one (isorisk check --repair)", smallest, pair);
         return new NoSolutionException(NoSolutionException.Reason.NOT_CONVEX, msg, involved);
     }
 
@@ -89,8 +122,65 @@ public final class Factored {
         return spectrum;
     }
 
-    /** Solves {@code Σ x = b}. */
+    /** Solves {@code Σ x = b}; {@code b} is not modified. */
     public double[] solve(double[] b) {
         return chol.solve(b);
+    }
+
+    /** Solves {@code Σ X = B} for several right-hand sides, reading the factor once per group of four. */
+    public double[][] solve(double[][] b) {
+        return chol.solve(b);
+    }
+
+    /**
+     * {@code Σ⁻¹a} for each gradient, from memory when the same gradient was solved before; the returned
+     * arrays are shared and must not be modified.
+     */
+    double[][] solveRemembered(List<double[]> gradients) {
+        int k = gradients.size();
+        double[][] out = new double[k][];
+        List<Integer> missing = new ArrayList<>();
+        for (int r = 0; r < k; r++) {
+            out[r] = memo.get(new Key(gradients.get(r)));
+            if (out[r] == null) {
+                missing.add(r);
+            }
+        }
+        if (!missing.isEmpty()) {
+            double[][] rhs = new double[missing.size()][];
+            for (int i = 0; i < rhs.length; i++) {
+                rhs[i] = gradients.get(missing.get(i));
+            }
+            double[][] x = chol.solve(rhs);
+            if (memo.size() + x.length > MEMO_LIMIT) {
+                memo.clear();
+            }
+            for (int i = 0; i < x.length; i++) {
+                out[missing.get(i)] = x[i];
+                memo.put(new Key(rhs[i].clone()), x[i]);
+            }
+        }
+        return out;
+    }
+
+    /** A gradient compared by value. */
+    private static final class Key {
+        private final double[] a;
+        private final int hash;
+
+        Key(double[] a) {
+            this.a = a;
+            this.hash = Arrays.hashCode(a);
+        }
+
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof Key k && k.hash == hash && Arrays.equals(k.a, a);
+        }
+
+        @Override
+        public int hashCode() {
+            return hash;
+        }
     }
 }

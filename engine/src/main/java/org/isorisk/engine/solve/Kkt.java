@@ -1,6 +1,7 @@
 package org.isorisk.engine.solve;
 
 import java.util.List;
+import org.isorisk.engine.linalg.Dense;
 import org.isorisk.engine.model.Certificate;
 import org.isorisk.engine.model.LinearConstraint;
 import org.isorisk.engine.model.Relation;
@@ -33,15 +34,23 @@ public final class Kkt {
     public static Certificate certify(double[][] sigma, double[] w, List<LinearConstraint> rows, double[] rowPrices,
                                       double[] lower, double[] upper, double[] lowerPrices, double[] upperPrices,
                                       double condition, double threshold, boolean convex) {
+        return certifyProduct(multiply(sigma, w), w, rows, rowPrices, lower, upper, lowerPrices, upperPrices,
+                condition, threshold, convex);
+    }
+
+    /**
+     * The same certificate from an already computed {@code Σw} (which the caller also needs, e.g. for the
+     * variance), so that one product serves both.
+     *
+     * @param sigmaW {@code Σw} computed from the full covariance and the candidate weights (not modified)
+     */
+    static Certificate certifyProduct(double[] sigmaW, double[] w, List<LinearConstraint> rows, double[] rowPrices,
+                                      double[] lower, double[] upper, double[] lowerPrices, double[] upperPrices,
+                                      double condition, double threshold, boolean convex) {
         int n = w.length;
         double[] grad = new double[n];
         for (int i = 0; i < n; i++) {
-            double s = 0;
-            double[] r = sigma[i];
-            for (int j = 0; j < n; j++) {
-                s += r[j] * w[j];
-            }
-            grad[i] = 2 * s;
+            grad[i] = 2 * sigmaW[i];
         }
         double[] residual = grad.clone();
         double[] scale = new double[n];
@@ -97,5 +106,10 @@ public final class Kkt {
         }
         double unit = worstScale > 0 ? worstScale : 1;
         return new Certificate(worstResidual / unit, primal, dual / unit, comp / unit, condition, threshold, convex);
+    }
+
+    /** {@code Σw} over the full (symmetric) matrix. */
+    static double[] multiply(double[][] sigma, double[] w) {
+        return Dense.multiplySymmetric(sigma, w);
     }
 }

@@ -1,0 +1,75 @@
+package org.isorisk.bench;
+
+import java.lang.management.ManagementFactory;
+import java.lang.management.MemoryPoolMXBean;
+import java.lang.management.MemoryType;
+import java.util.Arrays;
+
+/** Median wall-clock time after warm-up, and peak heap use, measured in this process. */
+public final class Timing {
+    private Timing() {
+    }
+
+    /** Work to time; returns something derived from its result so that the JIT cannot drop it. */
+    public interface Work {
+        double run() throws Exception;
+    }
+
+    /**
+     * A measurement.
+     *
+     * @param medianSeconds median over the measured repetitions
+     * @param minSeconds    fastest repetition
+     * @param peakHeapBytes highest heap occupancy seen during the measured repetitions (all heap pools)
+     * @param checksum      sum of the work's return values (printed nowhere; keeps the work alive)
+     */
+    public record Result(double medianSeconds, double minSeconds, long peakHeapBytes, double checksum) {
+    }
+
+    /** Runs {@code warmup} unmeasured and {@code reps} measured repetitions of {@code work}. */
+    public static Result measure(int warmup, int reps, Work work) throws Exception {
+        double checksum = 0;
+        for (int i = 0; i < warmup; i++) {
+            checksum += work.run();
+        }
+        System.gc();
+        resetPeaks();
+        double[] t = new double[reps];
+        for (int i = 0; i < reps; i++) {
+            long start = System.nanoTime();
+            checksum += work.run();
+            t[i] = (System.nanoTime() - start) / 1e9;
+        }
+        long peak = peakHeap();
+        Arrays.sort(t);
+        double median = reps % 2 == 1 ? t[reps / 2] : 0.5 * (t[reps / 2 - 1] + t[reps / 2]);
+        return new Result(median, t[0], peak, checksum);
+    }
+
+    /** The median of {@code values} (not modified). */
+    public static double median(double[] values) {
+        double[] t = values.clone();
+        Arrays.sort(t);
+        int n = t.length;
+        return n % 2 == 1 ? t[n / 2] : 0.5 * (t[n / 2 - 1] + t[n / 2]);
+    }
+
+    private static void resetPeaks() {
+        for (MemoryPoolMXBean p : ManagementFactory.getMemoryPoolMXBeans()) {
+            if (p.getType() == MemoryType.HEAP) {
+                p.resetPeakUsage();
+            }
+        }
+    }
+
+    /** Sum over heap pools of their peak use since the last reset (an upper bound of the true joint peak). */
+    private static long peakHeap() {
+        long sum = 0;
+        for (MemoryPoolMXBean p : ManagementFactory.getMemoryPoolMXBeans()) {
+            if (p.getType() == MemoryType.HEAP) {
+                sum += p.getPeakUsage().getUsed();
+            }
+        }
+        return sum;
+    }
+}

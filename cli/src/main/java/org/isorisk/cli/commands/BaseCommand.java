@@ -1,0 +1,86 @@
+package org.isorisk.cli.commands;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.Optional;
+import java.util.concurrent.Callable;
+import org.isorisk.cli.ExitCode;
+import org.isorisk.cli.Reporting;
+import org.isorisk.cli.options.Format;
+import org.isorisk.cli.render.Rendered;
+import org.isorisk.engine.io.AtomicWrite;
+import org.isorisk.engine.io.ResultJson;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Spec;
+
+/**
+ * What every command shares: the timer behind {@code timing_ms.total}, and {@link #emit} which prints a result in
+ * the chosen format to standard output or writes it atomically to {@code --out}.
+ */
+public abstract class BaseCommand implements Callable<Integer>, Reporting {
+
+    @Spec
+    CommandSpec spec;
+
+    private long started;
+
+    @Override
+    public final Integer call() throws Exception {
+        started = System.nanoTime();
+        return execute().code();
+    }
+
+    /** The command's work; user errors are thrown as engine exceptions and mapped by the error handler. */
+    protected abstract ExitCode execute() throws Exception;
+
+    /** The format the command was asked for; {@link Format#TABLE} for commands without {@code --format}. */
+    protected Format format() {
+        return Format.TABLE;
+    }
+
+    @Override
+    public boolean jsonOutput() {
+        return format() == Format.JSON;
+    }
+
+    @Override
+    public double elapsedMillis() {
+        return started == 0 ? Double.NaN : (System.nanoTime() - started) / 1e6;
+    }
+
+    /** Standard output of this command line. */
+    protected PrintWriter out() {
+        return spec.commandLine().getOut();
+    }
+
+    /** Standard error of this command line. */
+    protected PrintWriter err() {
+        return spec.commandLine().getErr();
+    }
+
+    /**
+     * Prints {@code r} in the chosen format, or writes it to {@code file} atomically. Warnings are part of every
+     * rendering; they are also repeated on stderr when the output is not a table on the terminal.
+     */
+    protected void emit(Rendered r, Optional<Path> file) {
+        Format f = format();
+        String text = switch (f) {
+            case JSON -> AtomicWrite.text(w -> ResultJson.write(ResultJson.finish(r.json(), elapsedMillis()), w));
+            case CSV -> r.csv();
+            case TABLE -> r.table();
+        };
+        if (f != Format.TABLE || file.isPresent()) {
+            for (String w : r.warnings()) {
+                err().println("isorisk: warning: " + w);
+            }
+        }
+        if (file.isPresent()) {
+            AtomicWrite.file(file.get(), w -> w.write(text));
+            err().println("isorisk: wrote " + file.get());
+        } else {
+            out().print(text);
+            out().flush();
+        }
+        err().flush();
+    }
+}

@@ -1,0 +1,77 @@
+package org.isorisk.cli.options;
+
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.util.Locale;
+import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.io.LoadedUniverse;
+import org.isorisk.engine.io.Provenance;
+import org.isorisk.engine.io.UniverseFiles;
+import org.isorisk.engine.io.UniverseLoader;
+import org.isorisk.engine.io.Units;
+import picocli.CommandLine;
+import picocli.CommandLine.Option;
+
+/** The assumption files and their units, shared by every command that reads them. */
+public final class InputOptions {
+
+    @Option(names = "--expected-returns", paramLabel = "FILE",
+            description = "Expected returns: CSV with columns asset,expected_return (annualised; more columns allowed).")
+    Path expectedReturns;
+
+    @Option(names = "--covariance", paramLabel = "FILE",
+            description = "Covariance matrix of annualised returns: CSV with 'asset' in the top-left cell and the asset "
+                    + "names down the first column and across the header, in any order.")
+    Path covariance;
+
+    @Option(names = "--volatilities", paramLabel = "FILE",
+            description = "Instead of --covariance: CSV asset,volatility (annualised), used with --correlation.")
+    Path volatilities;
+
+    @Option(names = "--correlation", paramLabel = "FILE",
+            description = "Instead of --covariance: correlation matrix laid out like the covariance.")
+    Path correlation;
+
+    @Option(names = "--units", paramLabel = "UNITS", defaultValue = "decimal", converter = UnitsConverter.class,
+            description = "Units of the numbers in the input files and numeric options: decimal (0.05 is 5 %%) or "
+                    + "percent (5 is 5 %%; covariances in percent squared). Default: ${DEFAULT-VALUE}.")
+    Units units = Units.DECIMAL;
+
+    @Option(names = "--as-of", paramLabel = "YYYY-MM-DD",
+            description = "Date the assumptions are as of, recorded with the results (default: the files' own "
+                    + "'# as_of:' line, if any).")
+    String asOf;
+
+    /** The units chosen. */
+    public Units units() {
+        return units;
+    }
+
+    /**
+     * Reads and validates the files.
+     *
+     * @param needReturns true when the command cannot work without expected returns
+     * @param command     the command's name, for the message when they are missing
+     */
+    public LoadedUniverse load(boolean needReturns, String command) {
+        if (needReturns && expectedReturns == null) {
+            throw InputException.of("'isorisk " + command + "' needs the expected returns")
+                    .fix("give --expected-returns FILE (columns asset,expected_return)").build();
+        }
+        LocalDate date = asOf == null ? null : Provenance.parseDate(asOf, null, 0);
+        return UniverseLoader.load(new UniverseFiles(expectedReturns, covariance, volatilities, correlation, units, date));
+    }
+
+    /** Reads {@code decimal} or {@code percent}. */
+    public static final class UnitsConverter implements CommandLine.ITypeConverter<Units> {
+        @Override
+        public Units convert(String value) {
+            for (Units u : Units.values()) {
+                if (u.label().equals(value.strip().toLowerCase(Locale.ROOT))) {
+                    return u;
+                }
+            }
+            throw new CommandLine.TypeConversionException("'" + value + "' is not a unit; use decimal or percent");
+        }
+    }
+}

@@ -1,0 +1,181 @@
+package org.isorisk.engine.io;
+
+import java.io.IOException;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.FileAlreadyExistsException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
+import java.util.Comparator;
+import java.util.stream.Stream;
+import org.isorisk.engine.error.InputException;
+
+/**
+ * The one place where results become files: everything is written to a temporary file (or folder) beside the
+ * target and moved into place at the end, so that a reader never sees a half-written result and a failure
+ * leaves the previous version untouched.
+ */
+public final class AtomicWrite {
+    private AtomicWrite() {
+    }
+
+    /** Marker file inside every output folder this class writes; only such folders are replaced. */
+    public static final String MARKER = ".isorisk-output";
+
+    /** Writes text to a {@link Writer}. */
+    @FunctionalInterface
+    public interface TextBody {
+        void write(Writer w) throws IOException;
+    }
+
+    /** Fills a (temporary) folder. */
+    @FunctionalInterface
+    public interface FolderBody {
+        void fill(Path folder) throws IOException;
+    }
+
+    /**
+     * Writes {@code target} (UTF-8) atomically; parent folders are created.
+     *
+     * @throws InputException when the target cannot be written (named, with a fix)
+     */
+    public static void file(Path target, TextBody body) {
+        Path abs = target.toAbsolutePath();
+        Path parent = parentOf(abs, target);
+        if (Files.isDirectory(abs)) {
+            throw InputException.of("the output path is a folder").file(target.toString())
+                    .fix("give a file name, e.g. " + target.resolve("result.json")).build();
+        }
+        Path tmp = null;
+        try {
+            tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
+            try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8, StandardOpenOption.CREATE_NEW,
+                    StandardOpenOption.WRITE)) {
+                body.write(w);
+            }
+            move(tmp, abs);
+            tmp = null;
+        } catch (IOException e) {
+            throw InputException.of("the output file cannot be written: " + e.getMessage()).file(target.toString())
+                    .fix("check that the folder is writable, or choose another --out").build();
+        } finally {
+            deleteQuietly(tmp);
+        }
+    }
+
+    /** Text of a {@link TextBody}, for writing to a terminal the same bytes as to a file. */
+    public static String text(TextBody body) {
+        java.io.StringWriter w = new java.io.StringWriter();
+        try {
+            body.write(w);
+        } catch (IOException e) {
+            throw new IllegalStateException("a StringWriter does not fail", e);
+        }
+        return w.toString();
+    }
+
+    /**
+     * Writes the folder {@code target} atomically: {@code body} fills a temporary folder beside it, which then
+     * replaces {@code target}. An existing target is replaced only when it is empty or was written by this class
+     * (it holds {@link #MARKER}); any other existing folder is refused, so that nothing of the user's is deleted.
+     */
+    public static void folder(Path target, FolderBody body) {
+        Path abs = target.toAbsolutePath();
+        Path parent = parentOf(abs, target);
+        boolean exists = Files.exists(abs);
+        if (exists && !Files.isDirectory(abs)) {
+            throw InputException.of("the output folder is an existing file").file(target.toString())
+                    .fix("choose another --out").build();
+        }
+        if (exists && !Files.exists(abs.resolve(MARKER)) && !isEmpty(abs)) {
+            throw InputException.of("the output folder exists and was not written by isorisk, so it is left alone")
+                    .file(target.toString()).fix("choose another --out, or empty the folder").build();
+        }
+        Path staging = null;
+        Path old = null;
+        try {
+            staging = Files.createDirectory(parent.resolve("." + abs.getFileName() + ".tmp-" + unique()));
+            Files.writeString(staging.resolve(MARKER), "written by isorisk; this folder is replaced as a whole\n",
+                    StandardCharsets.UTF_8);
+            body.fill(staging);
+            if (exists) {
+                old = parent.resolve("." + abs.getFileName() + ".old-" + unique());
+                move(abs, old);
+            }
+            move(staging, abs);
+            staging = null;
+        } catch (IOException e) {
+            throw InputException.of("the output folder cannot be written: " + e.getMessage()).file(target.toString())
+                    .fix("check that the folder is writable, or choose another --out").build();
+        } finally {
+            deleteTree(staging);
+            deleteTree(old);
+        }
+    }
+
+    /**
+     * A name part no other run uses at the same time. Temporary files are created by name rather than with
+     * {@code Files.createTemp*}, so that results get the user's usual permissions (umask), not owner-only.
+     */
+    private static String unique() {
+        return ProcessHandle.current().pid() + "-" + Long.toHexString(System.nanoTime());
+    }
+
+    private static Path parentOf(Path abs, Path target) {
+        Path parent = abs.getParent();
+        if (parent == null) {
+            throw InputException.of("the output path has no parent folder").file(target.toString()).build();
+        }
+        try {
+            Files.createDirectories(parent);
+        } catch (FileAlreadyExistsException e) {
+            throw InputException.of("a file stands where the output's folder should be").file(parent.toString())
+                    .fix("choose another --out").build();
+        } catch (IOException e) {
+            throw InputException.of("the output's folder cannot be created: " + e.getMessage()).file(parent.toString())
+                    .fix("check the path and permissions, or choose another --out").build();
+        }
+        return parent;
+    }
+
+    private static void move(Path from, Path to) throws IOException {
+        try {
+            Files.move(from, to, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+        } catch (AtomicMoveNotSupportedException e) {
+            Files.move(from, to, StandardCopyOption.REPLACE_EXISTING);
+        }
+    }
+
+    private static boolean isEmpty(Path dir) {
+        try (Stream<Path> s = Files.list(dir)) {
+            return s.findAny().isEmpty();
+        } catch (IOException e) {
+            return false;
+        }
+    }
+
+    private static void deleteQuietly(Path p) {
+        if (p == null) {
+            return;
+        }
+        try {
+            Files.deleteIfExists(p);
+        } catch (IOException e) {
+            // best effort: a leftover temporary file is harmless and named as one
+        }
+    }
+
+    private static void deleteTree(Path p) {
+        if (p == null || !Files.exists(p)) {
+            return;
+        }
+        try (Stream<Path> s = Files.walk(p)) {
+            s.sorted(Comparator.reverseOrder()).forEach(AtomicWrite::deleteQuietly);
+        } catch (IOException e) {
+            // best effort, as above
+        }
+    }
+}

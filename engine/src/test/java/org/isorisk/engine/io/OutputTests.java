@@ -1,0 +1,100 @@
+package org.isorisk.engine.io;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.stream.Stream;
+import org.isorisk.engine.error.InputException;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+class OutputTests {
+
+    @TempDir
+    Path dir;
+
+    private List<String> names() throws IOException {
+        try (Stream<Path> s = Files.list(dir)) {
+            return s.map(p -> p.getFileName().toString()).sorted().toList();
+        }
+    }
+
+    @Test
+    void aFileIsReplacedWholeAndNoTemporaryFileIsLeft() throws IOException {
+        Path f = dir.resolve("r.json");
+        Files.writeString(f, "old");
+        AtomicWrite.file(f, w -> w.write("new"));
+        assertEquals("new", Files.readString(f));
+        assertEquals(List.of("r.json"), names());
+    }
+
+    @Test
+    void aFailingWriteLeavesThePreviousFileUntouched() throws IOException {
+        Path f = dir.resolve("r.json");
+        Files.writeString(f, "old");
+        assertThrows(IllegalStateException.class, () -> AtomicWrite.file(f, w -> {
+            w.write("half");
+            throw new IllegalStateException("stopped half way");
+        }));
+        assertEquals("old", Files.readString(f));
+        assertEquals(List.of("r.json"), names());
+    }
+
+    @Test
+    void aFolderIsReplacedOnlyWhenThisProjectWroteIt() throws IOException {
+        Path out = dir.resolve("demo");
+        AtomicWrite.folder(out, d -> Files.writeString(d.resolve("a.txt"), "1"));
+        assertTrue(Files.exists(out.resolve(AtomicWrite.MARKER)));
+        AtomicWrite.folder(out, d -> Files.writeString(d.resolve("b.txt"), "2"));
+        assertFalse(Files.exists(out.resolve("a.txt")), "the folder is replaced as a whole");
+        assertEquals("2", Files.readString(out.resolve("b.txt")));
+        assertEquals(List.of("demo"), names());
+
+        Path mine = dir.resolve("mine");
+        Files.createDirectories(mine);
+        Files.writeString(mine.resolve("precious.txt"), "keep");
+        InputException e = assertThrows(InputException.class,
+                () -> AtomicWrite.folder(mine, d -> Files.writeString(d.resolve("x"), "y")));
+        assertTrue(e.getMessage().endsWith("the output folder exists and was not written by isorisk, so it is left "
+                + "alone; fix: choose another --out, or empty the folder"), e.getMessage());
+        assertEquals("keep", Files.readString(mine.resolve("precious.txt")));
+        assertEquals(List.of("demo", "mine"), names());
+    }
+
+    @Test
+    void writtenCsvReadsBackCellForCell() throws IOException {
+        StringWriter s = new StringWriter();
+        new CsvWriter(s).comment("caution", "line one\nline two").row("asset", "weight", "note")
+                .row("Bonds, long", 0.1 + 0.2, "say \"hi\"").row("#hash", 1e-9, null);
+        CsvTable t = Csv.parse("o.csv", "weights", s.toString());
+        assertEquals("line one line two", t.meta("caution").orElseThrow().value());
+        assertEquals("Bonds, long", t.rows().get(0).cell(0));
+        assertEquals(0.1 + 0.2, t.number(t.rows().get(0), 1, null), "full precision survives");
+        assertEquals("say \"hi\"", t.rows().get(0).cell(2));
+        assertEquals("#hash", t.rows().get(1).cell(0));
+        assertEquals(1e-9, t.number(t.rows().get(1), 1, null));
+        assertEquals("", t.rows().get(1).cell(2));
+    }
+
+    @Test
+    void shaTwoFiftySixMatchesThePublishedTestVectors() throws IOException {
+        // FIPS 180-2, Appendix B.1: SHA-256("abc"); the empty message's digest is the well-known e3b0c442... (from memory).
+        assertEquals("ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad",
+                SourceFile.sha256("abc".getBytes(StandardCharsets.US_ASCII)));
+        assertEquals("e3b0c44298fc1c149afbf4c8996fb92427ae41e4649b934ca495991b7852b855", SourceFile.sha256(new byte[0]));
+        Path f = dir.resolve("w.csv");
+        Files.writeString(f, "asset,weight\nA,1\n");
+        CsvTable t = Csv.read(f, "weights");
+        assertEquals(SourceFile.sha256(Files.readAllBytes(f)), t.source().sha256());
+        assertEquals("w.csv", t.source().name());
+        assertEquals(12, t.source().shortHash().length());
+    }
+}
