@@ -4,6 +4,8 @@ import java.util.List;
 import java.util.Optional;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.engine.risk.RiskDecomposition;
+import org.isorisk.engine.risk.TrackingError;
 
 /**
  * A rebalancing proposal with everything needed to explain and trust it.
@@ -25,6 +27,9 @@ import org.isorisk.engine.model.Solution;
  * @param proposedNetReturn  {@code μ'w − cost}
  * @param proposedVolatility {@code sqrt(w'Σw)}
  * @param trackingError      {@code sqrt((w − w0)'Σ(w − w0))}, the proposal's tracking error against today
+ * @param currentRisk        risk decomposition of today's portfolio (null when it has no risk at all)
+ * @param proposedRisk       risk decomposition of the proposal (null when it has no risk at all)
+ * @param activeRisk         tracking error against today with the contributions of the trades to it
  * @param turnoverPrice      shadow price of the turnover limit ({@code turnover}); empty without a limit
  * @param binding            every binding limit (mandate and trading) with its shadow price
  * @param sentences          plain readings of the turnover shadow price and of the other binding limits
@@ -36,7 +41,8 @@ public record RebalanceResult(String objective, Solution proposal, double[] curr
                               List<Breach> breaches, double turnover, double buys, double sells, double cost,
                               double costAmount, double currentReturn, double currentVolatility,
                               double proposedReturn, double proposedNetReturn, double proposedVolatility,
-                              double trackingError, Optional<Multiplier> turnoverPrice, List<Multiplier> binding,
+                              double trackingError, RiskDecomposition currentRisk, RiskDecomposition proposedRisk,
+                              TrackingError activeRisk, Optional<Multiplier> turnoverPrice, List<Multiplier> binding,
                               List<String> sentences, List<String> frozen, int rounds, List<String> notes) {
 
     /** How turnover is counted, in words; printed with every result. */

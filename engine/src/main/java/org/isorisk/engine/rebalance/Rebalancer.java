@@ -14,6 +14,8 @@ import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.engine.risk.RiskAnalysis;
+import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.solve.Kkt;
 
 /**
@@ -326,11 +328,15 @@ public final class Rebalancer {
         }
 
         double trackingError(double[] w) {
-            double[] d = new double[n];
-            for (int i = 0; i < n; i++) {
-                d[i] = w[i] - w0[i];
+            return RiskAnalysis.trackingError(u, w, w0).value();
+        }
+
+        RiskDecomposition decomposeOrNull(double[] w) {
+            try {
+                return RiskAnalysis.decompose(u, w);
+            } catch (org.isorisk.engine.error.InputException zeroRisk) {
+                return null;
             }
-            return Math.sqrt(Math.max(0, variance(d)));
         }
 
         /** A breached bound that the trade limit or the no-trade list does not let the proposal cure. */
@@ -454,7 +460,8 @@ public final class Rebalancer {
             List<Breach> breaches = Breaches.find(u, m, w0, w, trades);
             return new RebalanceResult(req.objective().label(), sol, w0, trades, breaches, turnover, buys, sells, cost,
                     cost * size, ret0, Math.sqrt(Math.max(0, variance(w0))), ret, ret - cost, vol, trackingError(w),
-                    tp, binding, sentences, frozenMin, rounds, solNotes);
+                    decomposeOrNull(w0), decomposeOrNull(w), RiskAnalysis.trackingError(u, w, w0), tp, binding,
+                    sentences, frozenMin, rounds, solNotes);
         }
 
         /**

@@ -153,6 +153,11 @@ class RebalancerTests {
         assertEquals(0.038, r.proposedReturn(), LIFTED * 0.1);
         assertEquals(0.0374, r.proposedNetReturn(), LIFTED * 0.1);
         assertEquals(0.2, r.turnover(), LIFTED);
+        // risk contributions from engine.risk add up to the volatility (Euler); tracking error against today
+        assertEquals(r.proposedVolatility(), java.util.Arrays.stream(r.proposedRisk().component()).sum(),
+                Tolerances.TIGHT);
+        assertEquals(r.currentVolatility(), r.currentRisk().volatility(), Tolerances.TIGHT);
+        assertEquals(r.trackingError(), r.activeRisk().value(), Tolerances.TIGHT);
         assertEquals(0.1, r.buys(), LIFTED);
         assertEquals(-200_000, r.trades().get(0).amount(), 1);
         assertEquals(Trade.Side.SELL, r.trades().get(0).side());
