@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Properties;
 import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
+import org.isorisk.cli.commands.EstimateCommand;
 import org.isorisk.cli.commands.RiskCommand;
 import org.isorisk.cli.commands.SolveCommand;
 import org.isorisk.engine.explain.Caution;
@@ -30,6 +31,7 @@ public final class IsoriskCommand implements Runnable {
     public static final List<Class<?>> COMMANDS = List.of(
             CheckCommand.class,
             SolveCommand.class,
+            EstimateCommand.class,
             RiskCommand.class,
             DemoCommand.class);
 

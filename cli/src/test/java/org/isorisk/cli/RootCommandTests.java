@@ -12,7 +12,7 @@ class RootCommandTests {
     void withoutACommandItExitsTwoNamingTheCommands() {
         Run r = Run.of();
         assertEquals(2, r.code(), r.toString());
-        assertEquals("isorisk: error: name a command: check, solve, risk, demo (see 'isorisk --help')\n", r.err());
+        assertEquals("isorisk: error: name a command: check, solve, estimate, risk, demo (see 'isorisk --help')\n", r.err());
         assertEquals("", r.out());
     }
 

@@ -42,6 +42,16 @@ public final class InputOptions {
                     + "'# as_of:' line, if any).")
     String asOf;
 
+    /** The covariance file, if given. */
+    public java.util.Optional<Path> covariance() {
+        return java.util.Optional.ofNullable(covariance);
+    }
+
+    /** The correlation file, if given. */
+    public java.util.Optional<Path> correlation() {
+        return java.util.Optional.ofNullable(correlation);
+    }
+
     /** The units chosen. */
     public Units units() {
         return units;
