@@ -124,6 +124,31 @@ class StressTests {
     }
 
     @Test
+    void aGroupCorrelationThatBreaksPositiveSemiDefinitenessIsRepairedAndReported() {
+        // the block of three assets pairwise at −0.9 has the eigenvalue 1 + 2(−0.9) = −0.8 (follows from the
+        // mathematics); Higham's (2002) nearest correlation matrix must be valid and differ from the shocked one
+        AssetUniverse u = randomUniverse(5, 5);
+        Scope g = new Scope(Scope.Kind.GROUP, "G", List.of(0, 1, 2));
+        Scenario sc = new Scenario("bad", "", List.of(new Shock.CorrelationSet(g, -0.9)));
+        Shocked sh = Shocks.apply(u, sc, CorrelationRepair.higham(u.assets()));
+        assertTrue(sh.repaired());
+        assertTrue(sh.smallestEigenvalue() < -0.5, "eigenvalue before " + sh.smallestEigenvalue());
+        assertTrue(sh.repairDistance() > 0.1 && sh.largestChange() > 0.05, sh.toString());
+        double[][] c = Shocks.correlation(sh.universe().covariance());
+        for (int i = 0; i < 5; i++) {
+            assertEquals(1.0, c[i][i], Tolerances.TIGHT);
+            assertEquals(u.covariance(i, i), sh.universe().covariance(i, i), Tolerances.TIGHT, "volatilities kept");
+        }
+        assertTrue(Spectrum.of(c).smallest() >= 0, "repaired matrix is PSD");
+        assertTrue(sh.notes().get(0).contains("nearest valid correlation matrix (Higham 2002)"), sh.notes().get(0));
+        // and the sweep runs on the repaired assumptions
+        StressResult r = Stress.run(new StressRequest(u, Mandate.fullyInvested(5), new double[] {0.05}, List.of(sc),
+                CorrelationRepair.higham(u.assets()), null), null);
+        assertTrue(r.scenarios().get(0).points().get(0).feasible());
+        assertTrue(r.scenarios().get(0).shocked().repaired());
+    }
+
+    @Test
     void aTargetGridIsParsedFromStartEndAndStep() {
         double[] t = TargetGrid.parse("0.04:0.09:0.0025", "--targets");
         assertEquals(21, t.length);
