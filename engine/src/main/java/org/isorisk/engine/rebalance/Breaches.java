@@ -63,17 +63,17 @@ final class Breaches {
             double v = c.violation(w0);
             if (v > TOLERANCE) {
                 List<Integer> involved = new ArrayList<>();
+                double[] coef = new double[n];
                 for (int i = 0; i < n; i++) {
-                    if (c.coefficient(i) != 0) {
+                    coef[i] = c.coefficient(i);
+                    if (coef[i] != 0) {
                         involved.add(i);
                     }
                 }
                 double now = c.evaluate(w0);
                 int dir = now > c.limit() ? -1 : 1;
-                List<Trade> cures = cures(involved, trades, c, dir);
-                out.add(new Breach(c.name(), now, c.limit(), v, c.evaluate(w), cures, String.format(Locale.ROOT,
-                        "Constraint %s is %s today, %s its limit %s.", c.name(), pct(now),
-                        dir < 0 ? "above" : "below", pct(c.limit()))));
+                out.add(make(c.name(), "constraint " + c.name(), now, c.limit(), c.evaluate(w), involved, coef, dir,
+                        trades, dir < 0 ? "above its limit" : "below its limit"));
             }
         }
         return out;
@@ -81,11 +81,18 @@ final class Breaches {
 
     private static Breach make(String constraint, String who, double now, double limit, double proposed,
                                List<Integer> members, int direction, List<Trade> trades, String how) {
+        return make(constraint, who, now, limit, proposed, members, null, direction, trades, how);
+    }
+
+    /** A breach of a weighted sum (coefficients null: all 1) with the trades that move it back. */
+    private static Breach make(String constraint, String who, double now, double limit, double proposed,
+                               List<Integer> members, double[] coef, int direction, List<Trade> trades, String how) {
         List<Trade> cures = new ArrayList<>();
         StringBuilder moves = new StringBuilder();
         for (int i : members) {
             Trade t = trades.get(i);
-            if (Math.signum(t.trade()) == direction) {
+            double a = coef == null ? 1 : coef[i];
+            if (Math.signum(t.trade() * a) == direction) {
                 cures.add(t);
                 if (moves.length() > 0) {
                     moves.append(", ");
@@ -99,17 +106,6 @@ final class Breaches {
         String d = String.format(Locale.ROOT, "%s is at %s today, %s %s by %s; %s.", capitalise(who), pct(now), how,
                 pct(limit), pct(Math.abs(now - limit)), cure);
         return new Breach(constraint, now, limit, Math.abs(now - limit), proposed, cures, d);
-    }
-
-    private static List<Trade> cures(List<Integer> members, List<Trade> trades, LinearConstraint c, int direction) {
-        List<Trade> out = new ArrayList<>();
-        for (int i : members) {
-            Trade t = trades.get(i);
-            if (Math.signum(t.trade() * c.coefficient(i)) == direction) {
-                out.add(t);
-            }
-        }
-        return out;
     }
 
     private static double sum(List<Integer> members, double[] w) {
