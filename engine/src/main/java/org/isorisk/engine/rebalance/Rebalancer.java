@@ -586,10 +586,27 @@ public final class Rebalancer {
                             c.startsWith("no_trade") ? "no-trade list" : "its trade was below the minimum size",
                             small(Math.abs(dv))));
                 } else {
-                    out.add(org.isorisk.engine.explain.Explain.sentence(q));
+                    out.add(sentence(q));
                 }
             }
             return out;
+        }
+
+        /**
+         * The reading of a mandate limit's shadow price for a small step (0.10 % for the return target, 1 % for
+         * weight limits), with enough decimals to show small changes.
+         */
+        static String sentence(Multiplier q) {
+            String c = q.constraint();
+            boolean ret = c.equals("target_return");
+            double step = ret ? org.isorisk.engine.explain.Explain.RETURN_STEP
+                    : org.isorisk.engine.explain.Explain.WEIGHT_STEP;
+            double dv = q.volatilityPerUnit() * step;
+            String what = ret ? "the return target (after costs)" : org.isorisk.engine.explain.Explain.describe(c);
+            String verb = dv > 0 ? "raise" : "lower";
+            return String.format(Locale.ROOT, "Raising %s by %s would %s volatility by %s%s.", what,
+                    Breaches.pct(step), verb, small(Math.abs(dv)),
+                    ret ? " (the marginal risk of tightening the return target)" : "");
         }
 
         /** A percent with enough decimals to show small first-order changes. */
