@@ -15,6 +15,7 @@ public final class Cases {
     public static Map<String, BenchCase> all() {
         Map<String, BenchCase> cases = new LinkedHashMap<>();
         add(cases, new ClosedFormCase());
+        add(cases, new CriticalLineCase());
         return cases;
     }
 

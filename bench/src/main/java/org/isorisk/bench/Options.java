@@ -8,7 +8,8 @@ import java.util.List;
  *
  * @param sizes     problem sizes (number of assets); empty means each case's own default
  * @param reps      measured repetitions (the median is reported); 0 means each case's default
- * @param warmup    unmeasured repetitions first, so that the JIT compiler has compiled the hot loops
+ * @param warmup    least number of unmeasured repetitions first (they also last at least
+ *                  {@link Timing#WARMUP_SECONDS}), so that the JIT compiler has compiled the hot loops; 0: none
  * @param threads   worker threads for dense linear algebra; default: available processors
  * @param reference whether to time outside references (numpy) beside isorisk
  */

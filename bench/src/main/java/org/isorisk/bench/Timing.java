@@ -26,10 +26,21 @@ public final class Timing {
     public record Result(double medianSeconds, double minSeconds, long peakHeapBytes, double checksum) {
     }
 
-    /** Runs {@code warmup} unmeasured and {@code reps} measured repetitions of {@code work}. */
+    /**
+     * Least time spent warming up, whatever the count: small problems run in microseconds, and the JIT compiler
+     * only compiles a loop after some thousands of passes, so a fixed count of warm-up runs would time
+     * interpreted code.
+     */
+    public static final double WARMUP_SECONDS = 1.0;
+
+    /**
+     * Runs at least {@code warmup} unmeasured repetitions of {@code work} (more until {@link #WARMUP_SECONDS}
+     * have passed), then {@code reps} measured ones.
+     */
     public static Result measure(int warmup, int reps, Work work) throws Exception {
         double checksum = 0;
-        for (int i = 0; i < warmup; i++) {
+        long start0 = System.nanoTime();
+        for (int i = 0; i < warmup || (warmup > 0 && System.nanoTime() - start0 < WARMUP_SECONDS * 1e9); i++) {
             checksum += work.run();
         }
         System.gc();

@@ -56,6 +56,18 @@ class BenchTests {
     }
 
     @Test
+    void aTinyRunOfTheCriticalLineCasePrintsItsTable() {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        int code = Bench.run(new String[] {"critical-line", "--sizes", "30", "--reps", "1", "--warmup", "0",
+                "--no-reference"}, print(out), print(new ByteArrayOutputStream()));
+        assertEquals(0, code);
+        String text = out.toString(StandardCharsets.UTF_8);
+        assertTrue(text.contains("frontier ms"), text);
+        assertTrue(text.lines().anyMatch(l -> l.trim().startsWith("30 ")), text);
+        assertTrue(!text.contains("WARNING"), text);
+    }
+
+    @Test
     void generatedProblemsAreReproducibleAndPositiveDefinite() {
         AssetUniverse a = FactorModel.universe(150, 3);
         AssetUniverse b = FactorModel.universe(150, 3);

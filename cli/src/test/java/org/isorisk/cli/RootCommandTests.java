@@ -3,8 +3,12 @@ package org.isorisk.cli;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import org.isorisk.cli.commands.BaseCommand;
 import org.isorisk.engine.explain.Caution;
 import org.junit.jupiter.api.Test;
+import picocli.CommandLine;
 
 class RootCommandTests {
 
@@ -49,5 +53,28 @@ class RootCommandTests {
             assertEquals(0, r.code(), c);
             assertTrue(r.out().contains("\nUsage: isorisk " + c + " "), r.out());
         }
+    }
+
+    /** A command with a bug, to see how an internal error is reported. */
+    @CommandLine.Command(name = "boom")
+    static final class Boom extends BaseCommand {
+        @Override
+        protected ExitCode execute() {
+            throw new IllegalStateException("a bug");
+        }
+    }
+
+    @Test
+    void anInternalErrorExitsOneWithItsStackTrace() {
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        CommandLine cl = Cli.commandLine(new PrintWriter(out, true), new PrintWriter(err, true), true);
+        cl.addSubcommand("boom", new Boom());
+        cl.setOut(new PrintWriter(out, true)).setErr(new PrintWriter(err, true)); // reach the command added late
+        assertEquals(1, cl.execute("boom"));
+        assertTrue(err.toString().startsWith("isorisk: internal error (a bug; please report it with the lines below): "
+                + "java.lang.IllegalStateException: a bug\n"), err.toString());
+        assertTrue(err.toString().contains("at org.isorisk.cli.RootCommandTests$Boom.execute"), err.toString());
+        assertEquals("", out.toString());
     }
 }

@@ -11,6 +11,8 @@ public final class InputException extends IsoriskException {
 
     private final String file;
     private final Integer row;
+    private final Integer line;
+    private final String key;
     private final String column;
     private final String asset;
     private final String value;
@@ -21,6 +23,8 @@ public final class InputException extends IsoriskException {
         super(compose(b));
         this.file = b.file;
         this.row = b.row;
+        this.line = b.line;
+        this.key = b.key;
         this.column = b.column;
         this.asset = b.asset;
         this.value = b.value;
@@ -40,6 +44,12 @@ public final class InputException extends IsoriskException {
         }
         if (b.row != null) {
             where.append(where.length() > 0 ? ", " : "").append("row ").append(b.row);
+        }
+        if (b.line != null) {
+            where.append(where.length() > 0 ? ", " : "").append("line ").append(b.line);
+        }
+        if (b.key != null) {
+            where.append(where.length() > 0 ? ", " : "").append("key '").append(b.key).append('\'');
         }
         if (b.column != null) {
             where.append(where.length() > 0 ? ", " : "").append("column '").append(b.column).append('\'');
@@ -64,6 +74,10 @@ public final class InputException extends IsoriskException {
     public Optional<String> file() { return Optional.ofNullable(file); }
     public Optional<Integer> row() { return Optional.ofNullable(row); }
     public Optional<String> column() { return Optional.ofNullable(column); }
+    /** One-based line of a text file such as the YAML policy. */
+    public Optional<Integer> line() { return Optional.ofNullable(line); }
+    /** Dotted key path inside a structured file, e.g. {@code bounds.assets.Cash.max}. */
+    public Optional<String> key() { return Optional.ofNullable(key); }
     public Optional<String> asset() { return Optional.ofNullable(asset); }
     public Optional<String> value() { return Optional.ofNullable(value); }
     public String problem() { return problem; }
@@ -74,6 +88,8 @@ public final class InputException extends IsoriskException {
         private final String problem;
         private String file;
         private Integer row;
+        private Integer line;
+        private String key;
         private String column;
         private String asset;
         private String value;
@@ -87,6 +103,10 @@ public final class InputException extends IsoriskException {
         /** One-based row number as a spreadsheet shows it (the header is row 1). */
         public Builder row(int r) { this.row = r; return this; }
         public Builder column(String c) { this.column = c; return this; }
+        /** One-based line number of a text file (YAML). */
+        public Builder line(int l) { this.line = l; return this; }
+        /** Dotted key path inside a structured file. */
+        public Builder key(String k) { this.key = k; return this; }
         public Builder asset(String a) { this.asset = a; return this; }
         public Builder value(Object v) { this.value = String.valueOf(v); return this; }
         public Builder fix(String f) { this.fix = f; return this; }

@@ -59,7 +59,7 @@ public final class AtomicWrite {
             move(tmp, abs);
             tmp = null;
         } catch (IOException e) {
-            throw InputException.of("the output file cannot be written: " + e.getMessage()).file(target.toString())
+            throw InputException.of("the output file cannot be written (" + reason(e) + ")").file(target.toString())
                     .fix("check that the folder is writable, or choose another --out").build();
         } finally {
             deleteQuietly(tmp);
@@ -108,7 +108,7 @@ public final class AtomicWrite {
             move(staging, abs);
             staging = null;
         } catch (IOException e) {
-            throw InputException.of("the output folder cannot be written: " + e.getMessage()).file(target.toString())
+            throw InputException.of("the output folder cannot be written (" + reason(e) + ")").file(target.toString())
                     .fix("check that the folder is writable, or choose another --out").build();
         } finally {
             deleteTree(staging);
@@ -135,10 +135,24 @@ public final class AtomicWrite {
             throw InputException.of("a file stands where the output's folder should be").file(parent.toString())
                     .fix("choose another --out").build();
         } catch (IOException e) {
-            throw InputException.of("the output's folder cannot be created: " + e.getMessage()).file(parent.toString())
+            throw InputException.of("the output's folder cannot be created (" + reason(e) + ")").file(parent.toString())
                     .fix("check the path and permissions, or choose another --out").build();
         }
         return parent;
+    }
+
+    /** Why a file operation failed, in words, without repeating the path the message already names. */
+    private static String reason(IOException e) {
+        if (e instanceof java.nio.file.AccessDeniedException) {
+            return "permission denied";
+        }
+        if (e instanceof java.nio.file.NoSuchFileException) {
+            return "no such file or folder";
+        }
+        if (e instanceof java.nio.file.FileSystemException f && f.getReason() != null) {
+            return f.getReason();
+        }
+        return e.getClass().getSimpleName() + (e.getMessage() == null ? "" : ": " + e.getMessage());
     }
 
     private static void move(Path from, Path to) throws IOException {

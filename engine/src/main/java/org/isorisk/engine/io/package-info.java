@@ -8,5 +8,7 @@
  * org.isorisk.engine.io.EstimateReport}, {@link org.isorisk.engine.io.RepairReport}), and atomic file writes. Every
  * error is an {@link org.isorisk.engine.error.InputException} naming file, row, column, asset, value and a fix.
  * Values leave this package in decimals, whatever {@link org.isorisk.engine.io.Units} they arrived in.
+ * The YAML mandate policy ({@link org.isorisk.engine.io.PolicyReader}) with its per-asset limits table names
+ * the line and key of every error.
  */
 package org.isorisk.engine.io;

@@ -1,6 +1,5 @@
 package org.isorisk.engine.linalg;
 
-
 /**
  * Cholesky factor {@code Σ = L L'} of a symmetric positive definite matrix, with single and multiple
  * right-hand-side solves.
@@ -19,17 +18,17 @@ package org.isorisk.engine.linalg;
  * flat row-major array (row offsets {@code i*n + j}) was measured about three times slower, because the
  * compiler cannot prove that differently offset accesses of one array do not overlap and keeps it scalar.
  * The trailing update and the panel solve are split by rows (balanced by work) over a small shared pool of
- * daemon threads when the matrix is large. The columns of L are kept as well (built from the panels as they
- * are solved), so that the forward solve, like the backward one, runs as vectorised axpy loops; this costs
- * n² more doubles of memory.
+ * daemon threads when the matrix is large. Solves read only the rows of L: the backward pass as vectorised
+ * axpy loops, the forward pass as dot products with independent partial sums. (Keeping the columns of L too,
+ * for an axpy forward pass, was measured slower at n = 2000: twice the memory to stream per solve.)
  *
  * <p>Instances are immutable and safe to share between threads.
  */
 public final class Cholesky {
     /**
-     * Block size (columns per panel). 64 balances the panel solve (scalar-heavy, cost ∝ n²·block) against
-     * the trailing update's reuse of each loaded row (∝ n³/block memory traffic); measured best among
-     * 32–128 on a 2-core AVX-512 machine at n = 500–2000.
+     * Block size (columns per panel). It balances the panel work (∝ n²·block) against the trailing update's
+     * memory traffic (∝ n³/block); on a 2-core AVX-512 machine 64 and 128 measured about equal at n = 2000,
+     * and 48 or 256 slower.
      */
     public static final int BLOCK = 64;
 
@@ -45,13 +44,10 @@ public final class Cholesky {
     private final int n;
     /** Row i holds L[i][0..i]. */
     private final double[][] l;
-    /** Row j holds column j of L, L[i][j] at index i ≥ j (zeros before): the forward solve runs along it. */
-    private final double[][] lt;
 
-    private Cholesky(int n, double[][] l, double[][] lt) {
+    private Cholesky(int n, double[][] l) {
         this.n = n;
         this.l = l;
-        this.lt = lt;
     }
 
     /**
@@ -72,6 +68,11 @@ public final class Cholesky {
      * @return the factor, or null when a pivot is not positive or not finite (not positive definite)
      */
     public static Cholesky factor(double[][] a, int threads) {
+        return factor(a, threads, BLOCK);
+    }
+
+    /** {@link #factor(double[][], int)} with another block size (for tests and tuning). */
+    static Cholesky factor(double[][] a, int threads, int block) {
         int n = a.length;
         double[][] l = new double[n][];
         for (int i = 0; i < n; i++) {
@@ -81,32 +82,24 @@ public final class Cholesky {
             l[i] = java.util.Arrays.copyOf(a[i], i + 1);
         }
         int t = n >= PARALLEL_MIN ? Math.max(1, threads) : 1;
-        double[][] lt = new double[n][];
-        return factorInPlace(n, l, lt, t) ? new Cholesky(n, l, lt) : null;
+        return factorInPlace(n, l, t, Math.max(4, block)) ? new Cholesky(n, l) : null;
     }
 
-    private static boolean factorInPlace(int n, double[][] l, double[][] lt, int threads) {
-        double[][] panel = n > BLOCK ? new double[BLOCK][n] : null;
-        for (int start = 0; start < n; start += BLOCK) {
+    private static boolean factorInPlace(int n, double[][] l, int threads, int block) {
+        double[][] panel = n > block ? new double[block][n] : null;
+        for (int start = 0; start < n; start += block) {
             int k0 = start;
-            int kb = Math.min(BLOCK, n - k0);
+            int kb = Math.min(block, n - k0);
             if (!factorDiagonalBlock(l, k0, kb)) {
                 return false;
             }
             int k1 = k0 + kb;
-            for (int p = 0; p < kb; p++) {
-                double[] column = new double[n];
-                for (int i = k0 + p; i < k1; i++) {
-                    column[i] = l[i][k0 + p];
-                }
-                lt[k0 + p] = column;
-            }
             if (k1 == n) {
                 break;
             }
             // Transposed panel: panel[p][i] = A[i][k0+p] for i ≥ k1, then solved in place to L[i][k0+p].
             int[] cols = Workers.split(k1, n, threads, false);
-            Workers.run(threads, part -> packAndSolvePanel(l, lt, panel, k0, kb, cols[part], cols[part + 1]));
+            Workers.run(threads, part -> packAndSolvePanel(l, panel, k0, kb, cols[part], cols[part + 1]));
             int[] rows = Workers.split(k1, n, threads, true);
             Workers.run(threads, part -> updateTrailing(l, panel, k0, kb, k1, rows[part], rows[part + 1]));
         }
@@ -139,10 +132,9 @@ public final class Cholesky {
     /**
      * For rows {@code from..to−1} (all ≥ k0+kb): copies their block columns into the transposed panel, solves
      * {@code X L11' = A21} column-wise (forward substitution on panel rows, an axpy per step) and writes the
-     * result back into the rows of L and into the columns kept for the forward solve.
+     * result back into the rows of L.
      */
-    private static void packAndSolvePanel(double[][] l, double[][] lt, double[][] panel, int k0, int kb, int from,
-                                          int to) {
+    private static void packAndSolvePanel(double[][] l, double[][] panel, int k0, int kb, int from, int to) {
         // Transpose four rows at a time so that each panel row receives four adjacent entries per visit.
         int i4 = from;
         for (; i4 + 3 < to; i4 += 4) {
@@ -192,9 +184,6 @@ public final class Cholesky {
             for (int i = from; i < to; i++) {
                 pj[i] *= inv;
             }
-        }
-        for (int p = 0; p < kb; p++) {
-            System.arraycopy(panel[p], from, lt[k0 + p], from, to - from);
         }
         i4 = from;
         for (; i4 + 3 < to; i4 += 4) {
@@ -258,6 +247,11 @@ public final class Cholesky {
         return n;
     }
 
+    /** Row i of L, entries 0..i (shared with this factor: not to be modified). */
+    double[] row(int i) {
+        return l[i];
+    }
+
     /** Entry (i, j) of L (zero above the diagonal). */
     public double factorEntry(int i, int j) {
         return j > i ? 0 : l[i][j];
@@ -273,8 +267,8 @@ public final class Cholesky {
     }
 
     /**
-     * Solves {@code Σ X = B} for several right-hand sides at once: each row and column of the factor is fetched
-     * from memory once for all of them and reused from cache.
+     * Solves {@code Σ X = B} for several right-hand sides at once: the forward pass reads each row of the factor
+     * once for four vectors, the backward pass reuses each row from cache for all of them.
      *
      * @param rhs right-hand sides, each of length n (not modified)
      * @return the solutions, in the order of {@code rhs}
@@ -285,14 +279,18 @@ public final class Cholesky {
             checkLength(rhs[c]);
             x[c] = rhs[c].clone();
         }
-        for (int i = 0; i < n; i++) {
-            double[] col = lt[i];
-            double d = col[i];
-            for (double[] xc : x) {
-                double xi = xc[i] / d;
-                xc[i] = xi;
-                axpy(-xi, col, xc, i + 1, n);
+        double[] scratch = null;
+        for (int c = 0; c < x.length; c += 4) {
+            int r = Math.min(4, x.length - c);
+            if (r == 1) {
+                forward(x[c]);
+                continue;
             }
+            if (r < 4 && scratch == null) {
+                scratch = new double[n];
+            }
+            // Fewer than four vectors left: the spare slots work on a scratch vector whose result is dropped.
+            forward4(x[c], x[c + 1], r > 2 ? x[c + 2] : scratch, r > 3 ? x[c + 3] : scratch);
         }
         for (int i = n - 1; i >= 0; i--) {
             double[] row = l[i];
@@ -306,14 +304,61 @@ public final class Cholesky {
         return x;
     }
 
-    /** Solves {@code L y = b} in place, column by column of L (an axpy per column, vectorised). */
+    /**
+     * Solves {@code L y = b} in place, row by row: a dot product per row with eight partial sums (independent
+     * chains the processor overlaps), so that only the rows of L are needed and the factor stays half the size
+     * of Σ; memory traffic, not arithmetic, bounds a solve.
+     */
     public void forward(double[] x) {
         checkLength(x);
         for (int i = 0; i < n; i++) {
-            double[] col = lt[i];
-            double xi = x[i] / col[i];
-            x[i] = xi;
-            axpy(-xi, col, x, i + 1, n);
+            double[] row = l[i];
+            double s0 = 0;
+            double s1 = 0;
+            double s2 = 0;
+            double s3 = 0;
+            double s4 = 0;
+            double s5 = 0;
+            double s6 = 0;
+            double s7 = 0;
+            int k = 0;
+            for (; k + 7 < i; k += 8) {
+                s0 += row[k] * x[k];
+                s1 += row[k + 1] * x[k + 1];
+                s2 += row[k + 2] * x[k + 2];
+                s3 += row[k + 3] * x[k + 3];
+                s4 += row[k + 4] * x[k + 4];
+                s5 += row[k + 5] * x[k + 5];
+                s6 += row[k + 6] * x[k + 6];
+                s7 += row[k + 7] * x[k + 7];
+            }
+            for (; k < i; k++) {
+                s0 += row[k] * x[k];
+            }
+            x[i] = (x[i] - (((s0 + s1) + (s2 + s3)) + ((s4 + s5) + (s6 + s7)))) / row[i];
+        }
+    }
+
+    /** Forward substitution of four vectors in place, each row of L read once for all four. */
+    private void forward4(double[] x0, double[] x1, double[] x2, double[] x3) {
+        for (int i = 0; i < n; i++) {
+            double[] row = l[i];
+            double s0 = 0;
+            double s1 = 0;
+            double s2 = 0;
+            double s3 = 0;
+            for (int k = 0; k < i; k++) {
+                double v = row[k];
+                s0 += v * x0[k];
+                s1 += v * x1[k];
+                s2 += v * x2[k];
+                s3 += v * x3[k];
+            }
+            double d = row[i];
+            x0[i] = (x0[i] - s0) / d;
+            x1[i] = (x1[i] - s1) / d;
+            x2[i] = (x2[i] - s2) / d;
+            x3[i] = (x3[i] - s3) / d;
         }
     }
 

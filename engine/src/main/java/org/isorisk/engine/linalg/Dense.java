@@ -46,4 +46,32 @@ public final class Dense {
         });
         return y;
     }
+
+    /**
+     * {@code A x_c} for several vectors, each row of the symmetric {@code a} read once for all of them.
+     *
+     * @param a  symmetric matrix (not modified)
+     * @param xs vectors (not modified)
+     */
+    public static double[][] multiplySymmetric(double[][] a, double[][] xs) {
+        int n = a.length;
+        double[][] ys = new double[xs.length][n];
+        int parts = n >= PARALLEL_MIN ? Math.min(2, Runtime.getRuntime().availableProcessors()) : 1;
+        int[] cut = Workers.split(0, n, parts, false);
+        Workers.run(parts, part -> {
+            int from = cut[part];
+            int to = cut[part + 1];
+            for (int j = 0; j < n; j++) {
+                double[] r = a[j];
+                for (int c = 0; c < xs.length; c++) {
+                    double xj = xs[c][j];
+                    double[] y = ys[c];
+                    for (int i = from; i < to; i++) {
+                        y[i] += xj * r[i];
+                    }
+                }
+            }
+        });
+        return ys;
+    }
 }

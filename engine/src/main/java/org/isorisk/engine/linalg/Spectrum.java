@@ -11,7 +11,12 @@ import org.apache.commons.math3.linear.EigenDecomposition;
  * values are exact to rounding. Above it the Lanczos method (full reorthogonalisation, a fixed pseudo-random
  * start) estimates the largest eigenvalue from products with Σ, and the smallest as the reciprocal of the
  * largest eigenvalue of Σ⁻¹, from solves with the Cholesky factor: a few dozen O(n²) steps instead of the
- * decomposition's O(n³).
+ * decomposition's O(n³). From {@link #SINGLE_PRECISION_MIN} assets each step streams megabytes of factor
+ * from memory, which is what it costs; there the Lanczos run uses a single-precision copy of the factor
+ * (half the bytes, twice the numbers per vector instruction), and its {@code 4} leading Ritz vectors are
+ * then checked and refined in double precision against the true Σ (or Σ⁻¹ through the double factor) by
+ * Rayleigh–Ritz on their span. The same stopping rule below is applied to that refined value; if it fails,
+ * the double-precision run is done from the start, so the accuracy stated below holds on both paths.
  *
  * <p>Accuracy of the iterative estimate ({@code exact == false}). A Ritz value θ of the Lanczos tridiagonal
  * T_m, with unit eigenvector s, has residual {@code r = β_m |s_m|} (Parlett, "The Symmetric Eigenvalue
@@ -91,32 +96,235 @@ public record Spectrum(double smallest, double largest, boolean exact) {
     public static Spectrum iterative(double[][] a, Cholesky chol) {
         int n = a.length;
         if (chol == null) {
-            double[] both = lanczos(n, x -> Dense.multiplySymmetric(a, x), true);
-            return new Spectrum(both[0], both[1], false);
+            Run both = lanczos(n, x -> Dense.multiplySymmetric(a, x), true);
+            return new Spectrum(both.lo, both.hi, false);
         }
-        // The two estimates are independent: for large matrices run them side by side on two threads.
-        boolean parallel = n >= Dense.PARALLEL_MIN && Runtime.getRuntime().availableProcessors() > 1;
-        double[] result = new double[2];
-        Workers.run(parallel ? 2 : 1, part -> {
-            if (part == 1 || !parallel) {
-                result[1] = lanczos(n, x -> Dense.multiplySymmetric(a, x, 1), false)[1];
+        if (n < SINGLE_PRECISION_MIN) {
+            double smallest = 1.0 / lanczos(n, chol::solve, false).hi;
+            return new Spectrum(smallest, lanczos(n, x -> Dense.multiplySymmetric(a, x), false).hi, false);
+        }
+        float[][] lf = new float[n][];
+        for (int i = 0; i < n; i++) {
+            double[] row = chol.row(i);
+            float[] r = new float[i + 1];
+            for (int k = 0; k <= i; k++) {
+                r[k] = (float) row[k];
             }
-            if (part == 0) {
-                result[0] = 1.0 / lanczos(n, chol::solve, false)[1];
+            lf[i] = r;
+        }
+        // Columns of the single-precision factor at full length (equal indices, so the forward pass vectorises),
+        // transposed tile by tile for locality.
+        float[][] cf = new float[n][n];
+        for (int i0 = 0; i0 < n; i0 += 64) {
+            for (int j0 = 0; j0 <= i0; j0 += 64) {
+                for (int i = i0; i < Math.min(n, i0 + 64); i++) {
+                    float[] r = lf[i];
+                    for (int j = j0; j < Math.min(j0 + 64, i + 1); j++) {
+                        cf[j][i] = r[j];
+                    }
+                }
             }
-        });
-        return new Spectrum(result[0], result[1], false);
+        }
+        double inverse = refinedLargest(n, x -> solveSingle(lf, cf, x), chol::solve, chol::solve);
+        double largest = refinedLargest(n, x -> multiplySingle(lf, x), v -> Dense.multiplySymmetric(a, v),
+                x -> Dense.multiplySymmetric(a, x));
+        return new Spectrum(1.0 / inverse, largest, false);
+    }
+
+    /** Size from which each estimate is first found with a single-precision copy of the factor. */
+    public static final int SINGLE_PRECISION_MIN = 1024;
+
+    /** Ritz vectors carried from the single-precision run into the double-precision check. */
+    private static final int REFINE = 4;
+
+    /** A symmetric operator applied to several vectors at once. */
+    private interface BlockOperator {
+        double[][] apply(double[][] v);
+    }
+
+    /**
+     * Largest eigenvalue of a symmetric operator. For large matrices one application streams the whole matrix
+     * or factor from memory, and that, not arithmetic, sets its cost; so the Lanczos run first uses the
+     * single-precision factor ({@code rough}: a quarter of the bytes), and its leading Ritz vectors are then
+     * checked and refined in double precision: Rayleigh–Ritz of the true operator ({@code exact}, applied to
+     * all of them in one pass) on their span, with the stopping rule of the class comment. Should that check
+     * fail, the double-precision run ({@code exactOne}) is done from the start, so the stated accuracy holds
+     * either way.
+     */
+    private static double refinedLargest(int n, Operator rough, BlockOperator exact, Operator exactOne) {
+        Run run = lanczos(n, rough, false);
+        double[][] y = run.topRitzVectors(Math.min(REFINE, run.m));
+        double[][] z = exact.apply(y);
+        int k = y.length;
+        double[][] h = new double[k][k];
+        for (int i = 0; i < k; i++) {
+            for (int j = 0; j <= i; j++) {
+                double v = 0.5 * (dot(y[i], z[j]) + dot(y[j], z[i]));
+                h[i][j] = v;
+                h[j][i] = v;
+            }
+        }
+        EigenDecomposition e = new EigenDecomposition(new Array2DRowRealMatrix(h, false));
+        double[] theta = e.getRealEigenvalues();
+        int top = 0;
+        for (int i = 1; i < k; i++) {
+            if (theta[i] > theta[top]) {
+                top = i;
+            }
+        }
+        double next = Double.NEGATIVE_INFINITY;
+        for (int i = 0; i < k; i++) {
+            if (i != top) {
+                next = Math.max(next, theta[i]);
+            }
+        }
+        double[] s = e.getEigenvector(top).toArray();
+        double[] res = new double[n];
+        for (int j = 0; j < k; j++) {
+            double c = s[j];
+            double[] zj = z[j];
+            double[] yj = y[j];
+            for (int i = 0; i < n; i++) {
+                res[i] += c * (zj[i] - theta[top] * yj[i]);
+            }
+        }
+        double r = Math.sqrt(dot(res, res));
+        // The gap: to the next Ritz value of the refined subspace or, if it has only one vector, of the rough run.
+        double gap = k > 1 ? theta[top] - next : run.hi - run.second();
+        double err = gap > 0 ? Math.min(r, r * r / gap) : r;
+        if (err <= RELATIVE_ACCURACY * Math.abs(theta[top])) {
+            return theta[top];
+        }
+        return lanczos(n, exactOne, false).hi;
+    }
+
+    /** {@code L(L'x)} ≈ Σx through the single-precision factor. */
+    private static double[] multiplySingle(float[][] lf, double[] b) {
+        int n = b.length;
+        float[] x = new float[n];
+        for (int i = 0; i < n; i++) {
+            x[i] = (float) b[i];
+        }
+        float[] y = new float[n];
+        for (int i = 0; i < n; i++) {
+            float[] row = lf[i];
+            float xi = x[i];
+            for (int k = 0; k <= i; k++) {
+                y[k] += xi * row[k];
+            }
+        }
+        double[] out = new double[n];
+        for (int i = 0; i < n; i++) {
+            float[] row = lf[i];
+            float s0 = 0;
+            float s1 = 0;
+            float s2 = 0;
+            float s3 = 0;
+            int k = 0;
+            for (; k + 3 <= i; k += 4) {
+                s0 += row[k] * y[k];
+                s1 += row[k + 1] * y[k + 1];
+                s2 += row[k + 2] * y[k + 2];
+                s3 += row[k + 3] * y[k + 3];
+            }
+            for (; k <= i; k++) {
+                s0 += row[k] * y[k];
+            }
+            out[i] = (s0 + s1) + (s2 + s3);
+        }
+        return out;
+    }
+
+    /** Σ⁻¹x through the single-precision factor: forward along its columns, backward along its rows (axpy). */
+    private static double[] solveSingle(float[][] lf, float[][] cf, double[] b) {
+        int n = b.length;
+        float[] x = new float[n];
+        for (int i = 0; i < n; i++) {
+            x[i] = (float) b[i];
+        }
+        for (int i = 0; i < n; i++) {
+            float[] col = cf[i];
+            float xi = x[i] / col[i];
+            x[i] = xi;
+            for (int k = i + 1; k < n; k++) {
+                x[k] -= xi * col[k];
+            }
+        }
+        for (int i = n - 1; i >= 0; i--) {
+            float[] row = lf[i];
+            float xi = x[i] / row[i];
+            x[i] = xi;
+            for (int k = 0; k < i; k++) {
+                x[k] -= xi * row[k];
+            }
+        }
+        double[] out = new double[n];
+        for (int i = 0; i < n; i++) {
+            out[i] = x[i];
+        }
+        return out;
     }
 
     private interface Operator {
         double[] apply(double[] x);
     }
 
+    /** A finished Lanczos run: its basis, tridiagonal and extreme Ritz values. */
+    private static final class Run {
+        final double[][] q;
+        final double[] alpha;
+        final double[] beta;
+        final int m;
+        final double lo;
+        final double hi;
+
+        Run(double[][] q, double[] alpha, double[] beta, int m, double lo, double hi) {
+            this.q = q;
+            this.alpha = alpha;
+            this.beta = beta;
+            this.m = m;
+            this.lo = lo;
+            this.hi = hi;
+        }
+
+        /** The second largest Ritz value (the largest again when there is only one). */
+        double second() {
+            return m > 1 ? kthLargest(alpha, beta, m, 1) : hi;
+        }
+
+        /**
+         * Orthonormal vectors spanning the Ritz vectors of the k largest Ritz values ({@code Q s} for each
+         * eigenvector s of T, orthonormalised again, since nearly equal Ritz values give nearly parallel s).
+         */
+        double[][] topRitzVectors(int k) {
+            int n = q[0].length;
+            java.util.List<double[]> out = new java.util.ArrayList<>();
+            for (int j = 0; j < k; j++) {
+                double[] s = tridiagonalEigenvector(alpha, beta, m, kthLargest(alpha, beta, m, j));
+                double[] y = new double[n];
+                for (int p = 0; p < m; p++) {
+                    axpy(s[p], q[p], y);
+                }
+                for (int pass = 0; pass < 2; pass++) {
+                    for (double[] u : out) {
+                        axpy(-dot(u, y), u, y);
+                    }
+                }
+                double norm = Math.sqrt(dot(y, y));
+                if (norm > 1e-8) {
+                    scale(y, 1.0 / norm);
+                    out.add(y);
+                }
+            }
+            return out.toArray(new double[0][]);
+        }
+    }
+
     /**
-     * Lanczos with full reorthogonalisation; returns {smallest, largest} Ritz values once the largest (and,
-     * when {@code both}, the smallest) has converged in the sense of the class comment.
+     * Lanczos with full reorthogonalisation; stops once the largest Ritz value (and, when {@code both}, the
+     * smallest) has converged in the sense of the class comment.
      */
-    private static double[] lanczos(int n, Operator op, boolean both) {
+    private static Run lanczos(int n, Operator op, boolean both) {
         int steps = Math.min(n, MAX_STEPS);
         double[][] q = new double[steps][];
         double[] alpha = new double[steps];
@@ -129,6 +337,7 @@ public record Spectrum(double smallest, double largest, boolean exact) {
         scale(v, 1.0 / Math.sqrt(dot(v, v)));
         double lo = Double.NaN;
         double hi = Double.NaN;
+        int m = 0;
         for (int k = 0; k < steps; k++) {
             q[k] = v;
             double[] w = op.apply(v);
@@ -144,15 +353,16 @@ public record Spectrum(double smallest, double largest, boolean exact) {
             }
             double b = Math.sqrt(dot(w, w));
             beta[k] = b;
-            int m = k + 1;
+            m = k + 1;
             hi = kthLargest(alpha, beta, m, 0);
-            lo = kthLargest(alpha, beta, m, m - 1);
-            double scale = Math.max(Math.max(Math.abs(hi), Math.abs(lo)), Double.MIN_NORMAL);
-            double hiErr = error(alpha, beta, m, hi, m > 1 ? hi - kthLargest(alpha, beta, m, 1) : 0);
-            boolean done = hiErr <= RELATIVE_ACCURACY * Math.max(Math.abs(hi), Double.MIN_NORMAL);
+            boolean done = converged(alpha, beta, m, hi, 1, Math.max(Math.abs(hi), Double.MIN_NORMAL));
+            double scale = Math.abs(hi);
+            if (both || done || !(b > 1e-13 * scale) || m == steps) {
+                lo = kthLargest(alpha, beta, m, m - 1);
+                scale = Math.max(Math.max(Math.abs(hi), Math.abs(lo)), Double.MIN_NORMAL);
+            }
             if (both && done) {
-                double loErr = error(alpha, beta, m, lo, m > 1 ? kthLargest(alpha, beta, m, m - 2) - lo : 0);
-                done = loErr <= RELATIVE_ACCURACY * scale;
+                done = converged(alpha, beta, m, lo, -1, scale);
             }
             // b ≈ 0: the Krylov subspace is invariant and its Ritz values are eigenvalues.
             if (done || !(b > 1e-13 * scale) || m == steps) {
@@ -161,17 +371,28 @@ public record Spectrum(double smallest, double largest, boolean exact) {
             v = w;
             scale(v, 1.0 / b);
         }
-        return new double[] {lo, hi};
+        return new Run(q, alpha, beta, m, lo, hi);
     }
 
     /**
-     * Error estimate {@code min(r, r²/gap)} of Ritz value θ of the m×m tridiagonal (alpha, beta), with
-     * {@code r = β_m |s_m|} from its eigenvector s (inverse iteration on T − θI).
+     * Whether Ritz value θ (the largest when {@code end} is 1, the smallest when −1) of the m×m tridiagonal
+     * (alpha, beta) has error estimate {@code min(r, r²/gap) ≤ RELATIVE_ACCURACY · scale}, with
+     * {@code r = β_m |s_m|} from its eigenvector s (inverse iteration on T − θI) and gap the distance to the
+     * next Ritz value (computed only when r alone does not settle it).
      */
-    private static double error(double[] alpha, double[] beta, int m, double theta, double gap) {
+    private static boolean converged(double[] alpha, double[] beta, int m, double theta, int end, double scale) {
         double[] s = tridiagonalEigenvector(alpha, beta, m, theta);
         double r = beta[m - 1] * Math.abs(s[m - 1]);
-        return gap > 0 ? Math.min(r, r * r / gap) : r;
+        double limit = RELATIVE_ACCURACY * scale;
+        if (r <= limit) {
+            return true;
+        }
+        if (m < 2) {
+            return false;
+        }
+        double next = kthLargest(alpha, beta, m, end > 0 ? 1 : m - 2);
+        double gap = Math.abs(theta - next);
+        return gap > 0 && r * r / gap <= limit;
     }
 
     /** Unit eigenvector of the tridiagonal (d, e) for eigenvalue θ: two steps of inverse iteration. */
@@ -235,7 +456,7 @@ public record Spectrum(double smallest, double largest, boolean exact) {
         int below = m - 1 - k; // the wanted eigenvalue has exactly this many below it
         for (int it = 0; it < 200; it++) {
             double mid = 0.5 * (lo + hi);
-            if (mid <= lo || mid >= hi) {
+            if (mid <= lo || mid >= hi || hi - lo <= 1e-15 * Math.max(Math.abs(lo), Math.abs(hi))) {
                 break;
             }
             if (countBelow(d, e, m, mid) > below) {

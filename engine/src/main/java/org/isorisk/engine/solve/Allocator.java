@@ -8,17 +8,20 @@ import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.LinearConstraint;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.MertonScalars;
 import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Relation;
+import org.isorisk.engine.model.ReturnRange;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.engine.model.SolverSettings;
 
 /**
- * The one front door for solving: picks the method (closed form when only equalities apply, the bounded
- * methods otherwise), runs it, and returns a solution that says which method it used and carries its
+ * The one front door for solving: picks the method (closed form when only equalities apply, the critical line
+ * method when only the budget, per-asset bounds and fixed weights apply, the numerical QP otherwise), runs it, and returns a solution that says which method it used and carries its
  * certificate.
  */
 public final class Allocator {
@@ -37,10 +40,33 @@ public final class Allocator {
      * @throws InputException      when the request cannot be solved as asked (e.g. closed form with bounds)
      */
     public static Solution solve(AllocationRequest r) {
+        return solve(r, null);
+    }
+
+    /**
+     * Solves one allocation problem, warm-starting the numerical method from a previous solution over the same
+     * assets (a neighbouring target of a frontier sweep, or the base case of a stress run). The closed form
+     * ignores the warm start.
+     *
+     * @param warmStart a previous solution, or null for a cold start
+     */
+    public static Solution solve(AllocationRequest r, Solution warmStart) {
         Mandate m = r.mandate();
         Method method = r.method();
         if (method == Method.AUTO) {
-            method = m.equalitiesOnly() ? Method.CLOSED_FORM : Method.NUMERICAL;
+            if (m.equalitiesOnly()) {
+                method = Method.CLOSED_FORM;
+            } else if (MandateSweep.applies(m) && !(r.objective() instanceof Objective.Tangency)) {
+                method = Method.CRITICAL_LINE;
+            } else {
+                method = Method.NUMERICAL;
+            }
+        }
+        if (method == Method.CRITICAL_LINE) {
+            return criticalLine(r);
+        }
+        if (method == Method.NUMERICAL) {
+            return session(r.universe(), m, r.settings()).solve(r.objective(), warmStart);
         }
         if (method == Method.CLOSED_FORM) {
             if (!m.equalitiesOnly()) {
@@ -52,6 +78,73 @@ public final class Allocator {
         }
         throw new NoSolutionException(NoSolutionException.Reason.NOT_CONVERGED,
                 "method " + method.label() + " is not available in this build", List.of());
+    }
+
+    /**
+     * Critical line solve: the minimum-variance portfolio under budget, bounds and fixed weights, or the exact
+     * frontier portfolio at a target return (interpolated between its two corner portfolios).
+     */
+    private static Solution criticalLine(AllocationRequest r) {
+        if (r.objective() instanceof Objective.Tangency) {
+            throw InputException.of("the critical line method here solves minimum-variance and target-return "
+                    + "problems, not the tangency portfolio").fix("drop --method critical-line for --risk-free").build();
+        }
+        MandateSweep sweep = MandateSweep.of(r.universe(), r.mandate(), r.settings());
+        if (r.objective() instanceof Objective.TargetReturn t) {
+            return sweep.target(t.target());
+        }
+        return sweep.minimumVariance();
+    }
+
+    /**
+     * The exact mandate frontier by the critical line method: corner portfolios of both branches, efficient and
+     * inefficient (each a certified solution with its multipliers), and exact portfolios at {@code targets}; targets outside the
+     * achievable range are listed in {@link Frontier#rejected()} with the reason.
+     *
+     * @param u        assets and assumptions
+     * @param m        budget, bounds and fixed weights (no groups or general constraints)
+     * @param targets  expected returns to sample, decimal (not modified; any order)
+     * @param settings tolerances and limits
+     * @throws NoSolutionException when the bounds admit no portfolio or Σ is not positive definite
+     * @throws InputException      when the mandate has groups or general constraints, or an unbounded asset
+     */
+    public static Frontier mandateFrontier(AssetUniverse u, Mandate m, double[] targets, SolverSettings settings) {
+        double[] copy = targets.clone();
+        return mandateFrontier(u, m, range -> copy, true, settings);
+    }
+
+    /**
+     * The exact mandate frontier with points at targets chosen once the achievable range is known.
+     *
+     * @param targetsForRange given {lowest return, minimum-variance return, highest return} (decimals), returns
+     *                        the targets to sample
+     * @param withInefficient also list the corners of the inefficient branch (below the minimum-variance return)
+     */
+    public static Frontier mandateFrontier(AssetUniverse u, Mandate m,
+                                           java.util.function.Function<double[], double[]> targetsForRange,
+                                           boolean withInefficient, SolverSettings settings) {
+        MandateSweep sweep = MandateSweep.of(u, m, settings == null ? SolverSettings.defaults() : settings);
+        return sweep.frontier(targetsForRange, withInefficient);
+    }
+
+    /** True when {@link Method#CRITICAL_LINE} can solve the mandate (what {@link Method#AUTO} checks). */
+    public static boolean criticalLineApplies(Mandate m) {
+        return !m.equalitiesOnly() && MandateSweep.applies(m);
+    }
+
+    /**
+     * A reusable numerical solver for one universe and mandate (frontier sweeps, stress runs): it checks the
+     * mandate and the convexity of Σ once and warm-starts each solve.
+     *
+     * @param settings null for {@link SolverSettings#defaults()}
+     */
+    public static SolverSession session(AssetUniverse u, Mandate m, SolverSettings settings) {
+        return new SolverSession(u, m, settings);
+    }
+
+    /** The lowest and highest expected return the mandate allows (linear programming), with the end portfolios. */
+    public static ReturnRange returnRange(AssetUniverse u, Mandate m) {
+        return new SolverSession(u, m, null).returnRange();
     }
 
     /** Closed-form solve on an already factored universe (for sweeps sharing one factorisation). */

@@ -1,7 +1,8 @@
 /**
  * Solvers behind one front door, {@link org.isorisk.engine.solve.Allocator}: the closed form from the
- * Lagrangian (KKT system through a Cholesky factor of Σ) and, for mandates with bounds and inequalities, the
- * bounded methods. Every solution carries a {@link org.isorisk.engine.model.Certificate} computed by
+ * Lagrangian (KKT system through a Cholesky factor of Σ); Markowitz's critical line method for the budget,
+ * per-asset bounds and fixed weights (every corner portfolio of the mandate frontier, exact targets between
+ * them); and, for groups and other inequalities, the numerical QP. Every solution carries a {@link org.isorisk.engine.model.Certificate} computed by
  * {@link org.isorisk.engine.solve.Kkt}, the one certificate of the project. Multipliers follow the single
  * convention ∂V*∂limit. No I/O here.
  */

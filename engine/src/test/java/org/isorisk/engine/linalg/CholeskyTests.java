@@ -70,6 +70,21 @@ class CholeskyTests {
     }
 
     @Test
+    void everyBlockSizeGivesTheSameFactorToRounding() {
+        double[][] a = spd(150, 21, 0.05);
+        Cholesky reference = Cholesky.factor(a, 1, 150); // one block: the unblocked algorithm
+        for (int block : new int[] {4, 7, 16, 64, 100}) {
+            Cholesky c = Cholesky.factor(a, 1, block);
+            for (int i = 0; i < a.length; i++) {
+                for (int j = 0; j <= i; j++) {
+                    assertEquals(reference.factorEntry(i, j), c.factorEntry(i, j), Tolerances.TIGHT * Math.sqrt(a[i][i]),
+                            "block " + block + " entry " + i + "," + j);
+                }
+            }
+        }
+    }
+
+    @Test
     void twoThreadsGiveBitForBitTheSameFactorAsOne() {
         double[][] a = spd(449, 5, 0.05);
         Cholesky one = Cholesky.factor(a, 1);
@@ -79,6 +94,40 @@ class CholeskyTests {
                 assertEquals(one.factorEntry(i, j), two.factorEntry(i, j), 0.0);
             }
         }
+    }
+
+    @Test
+    void largeSystemsFactoredWithTwoThreadsGiveBitForBitTheSameSolution() {
+        int n = 1061;
+        // Diagonally dominant, hence positive definite, and cheap to build at this size.
+        SplittableRandom r = new SplittableRandom(11);
+        double[][] a = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < i; j++) {
+                double v = r.nextDouble() - 0.5;
+                a[i][j] = v;
+                a[j][i] = v;
+            }
+            a[i][i] = n;
+        }
+        double[] b = new double[n];
+        for (int i = 0; i < n; i++) {
+            b[i] = r.nextDouble();
+        }
+        double[] one = Cholesky.factor(a, 1).solve(b);
+        Cholesky two = Cholesky.factor(a, 2);
+        assertArrayEquals(one, two.solve(b), 0.0);
+        // And it solves the system: residual of a well-conditioned system at rounding level.
+        double worst = 0;
+        double[] x = two.solve(b);
+        for (int i = 0; i < n; i++) {
+            double s = 0;
+            for (int j = 0; j < n; j++) {
+                s += a[i][j] * x[j];
+            }
+            worst = Math.max(worst, Math.abs(s - b[i]));
+        }
+        assertTrue(worst <= Tolerances.TIGHT * n, "residual " + worst);
     }
 
     @Test

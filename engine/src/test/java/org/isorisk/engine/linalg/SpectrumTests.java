@@ -52,6 +52,49 @@ class SpectrumTests {
     }
 
     @Test
+    void largeMatricesWithAKnownSpectrumAreEstimatedToTheStatedAccuracy() {
+        // Above Spectrum.SINGLE_PRECISION_MIN the estimate starts in single precision and is refined in double.
+        // Reference by construction: Σ = H D H with the reflection H = I − 2vv' (v a unit vector) has exactly
+        // the eigenvalues D (Golub & Van Loan, "Matrix Computations", 4th ed., 2013, §5.1: Householder
+        // reflections are orthogonal and symmetric), and takes O(n²) to build.
+        int n = Spectrum.SINGLE_PRECISION_MIN + 76;
+        SplittableRandom r = new SplittableRandom(5);
+        double[] d = new double[n];
+        for (int i = 0; i < n; i++) {
+            d[i] = 0.01 + 0.03 * r.nextDouble(); // a dense cluster of idiosyncratic-like variances
+        }
+        d[0] = 0.0095; // the smallest, just below the cluster
+        d[1] = 9.0; // and a few factor-like large ones
+        d[2] = 3.5;
+        d[3] = 1.2;
+        double[] v = new double[n];
+        double norm = 0;
+        for (int i = 0; i < n; i++) {
+            v[i] = r.nextDouble() - 0.5;
+            norm += v[i] * v[i];
+        }
+        norm = Math.sqrt(norm);
+        double vdv = 0;
+        for (int i = 0; i < n; i++) {
+            v[i] /= norm;
+            vdv += v[i] * d[i] * v[i];
+        }
+        double[][] a = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                // (H D H)_ij = D_i δ_ij − 2 v_i v_j (D_i + D_j) + 4 v_i v_j (v'Dv)
+                a[i][j] = (i == j ? d[i] : 0) - 2 * v[i] * v[j] * (d[i] + d[j]) + 4 * v[i] * v[j] * vdv;
+            }
+        }
+        Spectrum s = Spectrum.of(a, Cholesky.factor(a));
+        assertFalse(s.exact());
+        double tol = Spectrum.RELATIVE_ACCURACY;
+        assertEquals(0.0095, s.smallest(), tol * 0.0095);
+        assertEquals(9.0, s.largest(), tol * 9.0);
+        assertTrue(s.smallest() >= 0.0095 * (1 - 1e-12) && s.largest() <= 9.0 * (1 + 1e-12), s.toString());
+    }
+
+    @Test
     void withoutAFactorTheNegativeSmallestEigenvalueIsFound() {
         double[][] a = CholeskyTests.spd(150, 8, 0.05);
         // Shift down so that a few eigenvalues turn negative.
