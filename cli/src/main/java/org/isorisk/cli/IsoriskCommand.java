@@ -7,8 +7,10 @@ import java.util.Properties;
 import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.EstimateCommand;
+import org.isorisk.cli.commands.RebalanceCommand;
 import org.isorisk.cli.commands.RiskCommand;
 import org.isorisk.cli.commands.SolveCommand;
+import org.isorisk.cli.commands.StressCommand;
 import org.isorisk.engine.explain.Caution;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -33,6 +35,8 @@ public final class IsoriskCommand implements Runnable {
             SolveCommand.class,
             EstimateCommand.class,
             RiskCommand.class,
+            RebalanceCommand.class,
+            StressCommand.class,
             DemoCommand.class);
 
     @Spec

@@ -42,8 +42,6 @@ public final class Rebalancer {
     /** Grid of the nearest-portfolio scan (targets along the efficient branch); 21, common practice, no source. */
     static final int NEAREST_GRID = 21;
 
-    private static final LiftedSolver SOLVER = new OjAlgoLiftedSolver();
-
     /**
      * Computes a proposal.
      *
@@ -51,7 +49,7 @@ public final class Rebalancer {
      *                             them, or curing today's breaches needs more turnover than allowed
      */
     public static RebalanceResult rebalance(RebalanceRequest r) {
-        return new Run(r, SOLVER).run();
+        return new Run(r, new SessionLiftedSolver(r.settings())).run();
     }
 
     /** One rebalance: the state of the minimum-trade rule and the objective searches. */
@@ -196,7 +194,7 @@ public final class Rebalancer {
             if (p.emptyBox()) {
                 throw emptyBox(p);
             }
-            return p.base + Lp.optimise(p.netMu, p.rows, p.lower, p.upper, true).value();
+            return SessionLiftedSolver.maxNetReturn(p);
         }
 
         Solved sameRisk(boolean[] frozen) {
@@ -368,14 +366,9 @@ public final class Rebalancer {
             if (free.emptyBox()) {
                 return emptyBox(free);
             }
-            double[] c = new double[free.size()];
-            for (int i = 0; i < n; i++) {
-                c[i] = 1;
-                c[n + i] = -1;
-            }
             double need;
             try {
-                need = Lp.optimise(c, free.rows, free.lower, free.upper, false).value();
+                need = SessionLiftedSolver.minTurnover(free);
             } catch (NoSolutionException none) {
                 return new NoSolutionException(NoSolutionException.Reason.INFEASIBLE, "no portfolio meets the policy "
                         + "within the per-asset trade limits and the no-trade list, whatever the turnover; fix: loosen "

@@ -14,14 +14,14 @@ import org.isorisk.engine.error.IsoriskException;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
-import org.isorisk.engine.model.LinearConstraint;
+import org.isorisk.engine.model.ReturnRange;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.model.SolverSettings;
-import org.isorisk.engine.rebalance.Lp;
 import org.isorisk.engine.solve.Allocator;
+import org.isorisk.engine.solve.SolverSession;
 
 /**
  * The front door for stress tests: the base target sweep, then every scenario's sweep on a bounded pool of
@@ -32,21 +32,8 @@ public final class Stress {
     private Stress() {
     }
 
-    /** Solves minimum variance at one target under a mandate. */
-    @FunctionalInterface
-    interface TargetSolver {
-        Solution solve(AssetUniverse u, Mandate m, double target, SolverSettings s);
-    }
-
-    static final TargetSolver ALLOCATOR = (u, m, t, s) -> Allocator.solve(
-            new AllocationRequest(u, m, Objective.targetReturn(t), null, s));
-
     /** Runs the sweep and the scenarios. */
     public static StressResult run(StressRequest r, StressProgress progress) {
-        return run(r, progress, ALLOCATOR);
-    }
-
-    static StressResult run(StressRequest r, StressProgress progress, TargetSolver solver) {
         StressProgress pr = progress == null ? StressProgress.NONE : progress;
         double[] t = r.targets();
         int total = t.length * (1 + r.scenarios().size());
@@ -60,7 +47,7 @@ public final class Stress {
             notes.addAll(sh.notes());
         }
         int threads = Math.max(1, Math.min(r.settings().threads(), Math.max(1, r.scenarios().size())));
-        Sweep base = sweep(r.universe(), r.mandate(), t, r.settings(), solver, pr, done, total, "base");
+        Sweep base = sweep(r.universe(), r.mandate(), t, r.settings(), pr, done, total, "base");
         List<ScenarioResult> results = new ArrayList<>();
         if (!r.scenarios().isEmpty()) {
             ExecutorService pool = Executors.newFixedThreadPool(threads, run -> {
@@ -73,7 +60,7 @@ public final class Stress {
                 for (int k = 0; k < r.scenarios().size(); k++) {
                     Scenario sc = r.scenarios().get(k);
                     Shocked sh = shocked.get(k);
-                    futures.add(pool.submit(() -> scenario(sc, sh, base, r, solver, pr, done, total)));
+                    futures.add(pool.submit(() -> scenario(sc, sh, base, r, pr, done, total)));
                 }
                 for (Future<ScenarioResult> f : futures) {
                     results.add(f.get());
@@ -93,9 +80,9 @@ public final class Stress {
         return new StressResult(base, results, threads, notes);
     }
 
-    static ScenarioResult scenario(Scenario sc, Shocked sh, Sweep base, StressRequest r, TargetSolver solver,
-                                   StressProgress pr, AtomicInteger done, int total) {
-        Sweep s = sweep(sh.universe(), r.mandate(), r.targets(), r.settings(), solver, pr, done, total, sc.name());
+    static ScenarioResult scenario(Scenario sc, Shocked sh, Sweep base, StressRequest r, StressProgress pr,
+                                   AtomicInteger done, int total) {
+        Sweep s = sweep(sh.universe(), r.mandate(), r.targets(), r.settings(), pr, done, total, sc.name());
         AssetUniverse u = sh.universe();
         List<ScenarioPoint> points = new ArrayList<>();
         for (int k = 0; k < s.points().size(); k++) {
@@ -123,20 +110,29 @@ public final class Stress {
         return new ScenarioResult(sc, sh, s.maxTarget(), points);
     }
 
-    /** The sweep of one universe over the targets, in increasing order. */
-    static Sweep sweep(AssetUniverse u, Mandate m, double[] targets, SolverSettings settings, TargetSolver solver,
-                       StressProgress pr, AtomicInteger done, int total, String label) {
+    /**
+     * The sweep of one universe over the targets, in increasing order: one solver session (one factorisation,
+     * the mandate checked once), each solve warm-started from the previous target's solution.
+     */
+    static Sweep sweep(AssetUniverse u, Mandate m, double[] targets, SolverSettings settings, StressProgress pr,
+                       AtomicInteger done, int total, String label) {
         double[] range = returnRange(u, m);
         List<TargetPoint> points = new ArrayList<>();
+        SolverSession session = m.equalitiesOnly() ? null : Allocator.session(u, m, settings);
+        Solution warm = null;
         for (double t : targets) {
-            points.add(point(u, m, t, range, settings, solver));
+            TargetPoint p = point(u, m, t, range, settings, session, warm);
+            if (p.feasible()) {
+                warm = p.solution();
+            }
+            points.add(p);
             pr.step(done.incrementAndGet(), total, String.format(Locale.ROOT, "%s, target %.2f %%", label, t * 100));
         }
         return new Sweep(points, range[0], range[1], changes(points));
     }
 
     static TargetPoint point(AssetUniverse u, Mandate m, double t, double[] range, SolverSettings settings,
-                             TargetSolver solver) {
+                             SolverSession session, Solution warm) {
         double slack = 1e-12 * Math.max(1, Math.abs(t));
         if (Double.isNaN(range[0]) || Double.isNaN(range[1])) {
             return new TargetPoint(t, false, null, Double.NaN, Double.NaN, List.of(),
@@ -148,7 +144,9 @@ public final class Stress {
                     range[1] * 100));
         }
         try {
-            Solution s = solver.solve(u, m, t, settings);
+            Solution s = session == null
+                    ? Allocator.solve(new AllocationRequest(u, m, Objective.targetReturn(t), null, settings))
+                    : session.solve(Objective.targetReturn(t), warm);
             double marginal = s.multiplier("target_return").map(Multiplier::volatilityPerUnit).orElse(Double.NaN);
             List<String> binding = new ArrayList<>();
             for (Multiplier q : s.binding()) {
@@ -166,25 +164,18 @@ public final class Stress {
     }
 
     /**
-     * Lowest and highest expected return the mandate allows, by linear programming over its rows and bounds;
-     * ±∞ on a side where the mandate is unbounded (no bounds: short positions allowed).
+     * Lowest and highest expected return the mandate allows (the allocator's linear programmes over the mandate's
+     * rows and bounds); ±∞ where the mandate is unbounded, NaN when it is infeasible.
      */
     public static double[] returnRange(AssetUniverse u, Mandate m) {
         if (!m.hasBounds()) {
             return new double[] {Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY};
         }
-        List<LinearConstraint> rows = m.rows(u.assets());
-        double[] mu = u.expectedReturns();
-        double hi = boundOrInfinite(mu, rows, m, true);
-        double lo = boundOrInfinite(mu, rows, m, false);
-        return new double[] {lo, hi};
-    }
-
-    private static double boundOrInfinite(double[] mu, List<LinearConstraint> rows, Mandate m, boolean max) {
         try {
-            return Lp.optimise(mu, rows, m.lower(), m.upper(), max).value();
+            ReturnRange r = Allocator.returnRange(u, m);
+            return new double[] {r.min(), r.max()};
         } catch (NoSolutionException e) {
-            return Double.NaN; // the mandate itself is infeasible: every target is reported infeasible
+            return new double[] {Double.NaN, Double.NaN};
         }
     }
 

@@ -22,7 +22,7 @@ import org.junit.jupiter.api.Test;
 class RebalancerTests {
 
     /** Accuracy of the lifted problem's solver on these small problems (measured: about 1e-7). */
-    static final double LIFTED = 1e-6;
+    static final double LIFTED = 1e-8;
 
     /** Invented four-asset universe (illustrative numbers, not market data). */
     static final List<String> ASSETS = List.of("Cash", "Government Bonds", "Domestic Equity", "Emerging Equity");

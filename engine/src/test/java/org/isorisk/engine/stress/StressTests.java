@@ -45,6 +45,33 @@ class StressTests {
     }
 
     @Test
+    void underBoundsAVolatilityMultiplierAlsoScalesTheMinimumVolatilityAndKeepsTheWeights() {
+        // follows from the mathematics: the feasible set does not depend on Σ, and Σ → k²Σ scales the objective
+        int n = 10;
+        AssetUniverse u = randomUniverse(n, 17);
+        double[] hi = new double[n];
+        Arrays.fill(hi, 0.25);
+        Mandate m = Mandate.fullyInvested(n).withBounds(new double[n], hi);
+        double k = 0.8;
+        double[] range = Stress.returnRange(u, m);
+        double[] t = new double[8];
+        for (int i = 0; i < t.length; i++) {
+            t[i] = range[0] + (range[1] - range[0]) * (i + 0.5) / t.length;
+        }
+        Scenario sc = new Scenario("calm", "", List.of(new Shock.VolatilityMultiplier(Scope.all(n), k)));
+        StressResult res = Stress.run(new StressRequest(u, m, t, List.of(sc), null, null), null);
+        for (int i = 0; i < t.length; i++) {
+            TargetPoint b = res.base().points().get(i);
+            ScenarioPoint p = res.scenarios().get(0).points().get(i);
+            assertTrue(b.feasible() && p.feasible());
+            assertEquals(k * b.volatility(), p.volatility(), Tolerances.NUMERICAL);
+            assertEquals(0, p.turnover(), Tolerances.NUMERICAL, "weights unchanged at target " + t[i]);
+            assertEquals(b.binding(), p.binding());
+        }
+        assertFalse(res.base().changes().isEmpty(), "bounds come and go along the sweep");
+    }
+
+    @Test
     void aCorrelationShiftKeepsAUnitDiagonalAndPositiveSemiDefiniteness() {
         // follows from the mathematics: (1 − f)R + f·11' is a convex combination of PSD unit-diagonal matrices
         AssetUniverse u = randomUniverse(12, 11);
