@@ -14,6 +14,9 @@ import org.isorisk.engine.error.IsoriskException;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.Corner;
+import org.isorisk.engine.model.Frontier;
+import org.isorisk.engine.model.RejectedTarget;
 import org.isorisk.engine.model.ReturnRange;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Multiplier;
@@ -116,6 +119,9 @@ public final class Stress {
      */
     static Sweep sweep(AssetUniverse u, Mandate m, double[] targets, SolverSettings settings, StressProgress pr,
                        AtomicInteger done, int total, String label) {
+        if (boundsOnly(m)) {
+            return exact(u, m, targets, settings, pr, done, total, label);
+        }
         double[] range = returnRange(u, m);
         List<TargetPoint> points = new ArrayList<>();
         SolverSession session = m.equalitiesOnly() ? null : Allocator.session(u, m, settings);
@@ -129,6 +135,135 @@ public final class Stress {
             pr.step(done.incrementAndGet(), total, String.format(Locale.ROOT, "%s, target %.2f %%", label, t * 100));
         }
         return new Sweep(points, range[0], range[1], changes(points));
+    }
+
+    /** True when only the budget, finite bounds and fixed weights apply: the critical line method is exact. */
+    static boolean boundsOnly(Mandate m) {
+        if (!m.hasBounds() || m.hasGeneralInequalities()) {
+            return false;
+        }
+        for (var c : m.constraints()) {
+            if (c.relation() == org.isorisk.engine.model.Relation.EQUAL) {
+                return false;
+            }
+        }
+        for (int i = 0; i < m.size(); i++) {
+            if (!m.fixed().containsKey(i) && !(Double.isFinite(m.lower(i)) && Double.isFinite(m.upper(i)))) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * The sweep from the exact mandate frontier (critical line method): every target's portfolio from the corner
+     * portfolios around it, and the targets where the binding set changes exactly at the corners' returns.
+     */
+    static Sweep exact(AssetUniverse u, Mandate m, double[] targets, SolverSettings settings, StressProgress pr,
+                       AtomicInteger done, int total, String label) {
+        Frontier f;
+        try {
+            f = Allocator.mandateFrontier(u, m, range -> targets.clone(), false, settings);
+        } catch (NoSolutionException e) {
+            if (e.reason() != NoSolutionException.Reason.INFEASIBLE) {
+                throw e;
+            }
+            List<TargetPoint> none = new ArrayList<>();
+            for (double t : targets) {
+                none.add(new TargetPoint(t, false, null, Double.NaN, Double.NaN, List.of(), e.getMessage()));
+                pr.step(done.incrementAndGet(), total, label);
+            }
+            return new Sweep(none, Double.NaN, Double.NaN, List.of());
+        }
+        List<TargetPoint> points = new ArrayList<>();
+        for (double t : targets) {
+            Solution hit = null;
+            for (Solution s : f.points()) {
+                if (Math.abs(s.expectedReturn() - t) <= 1e-9 * Math.max(1, Math.abs(t))) {
+                    hit = s;
+                    break;
+                }
+            }
+            if (hit == null) {
+                String why = f.rejected().stream().filter(r -> r.target() == t).map(RejectedTarget::reason)
+                        .findFirst().orElse(String.format(Locale.ROOT, "the target is outside the returns the mandate "
+                                + "allows, %.4f %% to %.4f %%", f.lowestReturn() * 100, f.maxReturn() * 100));
+                points.add(new TargetPoint(t, false, null, Double.NaN, Double.NaN, List.of(), why));
+            } else {
+                points.add(target(t, hit));
+            }
+            pr.step(done.incrementAndGet(), total, String.format(Locale.ROOT, "%s, target %.2f %%", label, t * 100));
+        }
+        List<BindingChange> changes = cornerChanges(f, m, u, targets);
+        return new Sweep(points, f.lowestReturn(), f.maxReturn(), changes == null ? changes(points) : changes);
+    }
+
+    /**
+     * Binding-set changes at the interior corners of the efficient branch within the grid, exactly: between two
+     * corners the free set is constant, so at corner k the assets that leave the free set going up start binding
+     * at a bound and those that enter stop binding. Null when the corners do not carry their free sets.
+     */
+    static List<BindingChange> cornerChanges(Frontier f, Mandate m, AssetUniverse u, double[] targets) {
+        List<Corner> c = f.corners();
+        List<BindingChange> out = new ArrayList<>();
+        if (targets.length == 0) {
+            return out;
+        }
+        double lo = targets[0];
+        double hi = targets[targets.length - 1];
+        for (int k = 1; k + 1 < c.size(); k++) {
+            if (c.get(k).free().isEmpty() && c.get(k + 1).free().isEmpty()) {
+                return null;
+            }
+            double r = c.get(k).expectedReturn();
+            if (r < lo || r > hi) {
+                continue;
+            }
+            List<String> below = c.get(k).free();
+            List<String> above = c.get(k + 1).free();
+            List<String> entered = new ArrayList<>();
+            List<String> left = new ArrayList<>();
+            for (String a : below) {
+                if (!above.contains(a)) {
+                    entered.add(boundName(a, c.get(k).portfolio(), m, u));
+                }
+            }
+            for (String a : above) {
+                if (!below.contains(a)) {
+                    left.add(boundName(a, c.get(k).portfolio(), m, u));
+                }
+            }
+            double from = Double.NaN;
+            double to = Double.NaN;
+            for (double t : targets) {
+                if (t <= r) {
+                    from = t;
+                }
+                if (t >= r && Double.isNaN(to)) {
+                    to = t;
+                }
+            }
+            out.add(new BindingChange(r, from, to, entered, left, true));
+        }
+        return out;
+    }
+
+    /** {@code lower:<asset>} or {@code upper:<asset>}, whichever bound the asset sits at in the corner portfolio. */
+    private static String boundName(String asset, Solution corner, Mandate m, AssetUniverse u) {
+        int i = u.indexOf(asset).orElseThrow();
+        double w = corner.weight(i);
+        return (Math.abs(w - m.lower(i)) <= Math.abs(w - m.upper(i)) ? "lower:" : "upper:") + asset;
+    }
+
+    static TargetPoint target(double t, Solution s) {
+        double marginal = s.multiplier("target_return").map(Multiplier::volatilityPerUnit).orElse(Double.NaN);
+        List<String> binding = new ArrayList<>();
+        for (Multiplier q : s.binding()) {
+            if (!q.constraint().equals("budget") && !q.constraint().equals("target_return")) {
+                binding.add(q.constraint());
+            }
+        }
+        return new TargetPoint(t, true, s, s.volatility(), marginal, binding, "");
     }
 
     static TargetPoint point(AssetUniverse u, Mandate m, double t, double[] range, SolverSettings settings,

@@ -72,6 +72,57 @@ class StressTests {
     }
 
     @Test
+    void underBoundsTheSweepIsExactFromTheCornersAndAgreesWithTheActiveSetQp() {
+        // two independent methods: the critical line method (Markowitz 1956; corners) and the active-set QP,
+        // forced by a group limit that never binds
+        int n = 8;
+        AssetUniverse u = randomUniverse(n, 23);
+        double[] hi = new double[n];
+        Arrays.fill(hi, 0.3);
+        Mandate m = Mandate.fullyInvested(n).withBounds(new double[n], hi);
+        double[] range = Stress.returnRange(u, m);
+        double[] t = new double[25];
+        for (int i = 0; i < t.length; i++) {
+            t[i] = range[0] + (range[1] - range[0]) * i / (t.length - 1.0);
+        }
+        Sweep exact = Stress.run(new StressRequest(u, m, t, List.of(), null, null), null).base();
+        Mandate withGroup = new Mandate(1.0, new double[n], hi, java.util.Map.of(), List.of(
+                new org.isorisk.engine.model.Group("All", java.util.stream.IntStream.range(0, n).boxed().toList(),
+                        Double.NEGATIVE_INFINITY, 2.0)), List.of());
+        Sweep qp = Stress.run(new StressRequest(u, withGroup, t, List.of(), null, null), null).base();
+        int changes = 0;
+        for (BindingChange c : exact.changes()) {
+            assertTrue(c.exact());
+            assertTrue(c.from() <= c.at() && c.at() <= c.to(), c.toString());
+            changes++;
+        }
+        assertTrue(changes >= 2, "bounds come and go along the frontier: " + exact.changes());
+        for (int i = 0; i < t.length; i++) {
+            TargetPoint a = exact.points().get(i);
+            TargetPoint b = qp.points().get(i);
+            assertEquals(a.feasible(), b.feasible(), "target " + t[i]);
+            if (a.feasible()) {
+                assertEquals(a.volatility(), b.volatility(), Tolerances.NUMERICAL, "target " + t[i]);
+                assertEquals(a.marginalRisk(), b.marginalRisk(), 1e-6, "target " + t[i]);
+            }
+        }
+        // each exact change matches what the grid points on either side show
+        for (BindingChange c : exact.changes()) {
+            int k = Arrays.binarySearch(t, c.to());
+            if (k > 0 && c.from() < c.at() && c.at() < c.to()) {
+                List<String> before = exact.points().get(k - 1).binding();
+                List<String> after = exact.points().get(k).binding();
+                for (String e : c.entered()) {
+                    assertTrue(after.contains(e) && !before.contains(e), e + " at " + c);
+                }
+                for (String l : c.left()) {
+                    assertTrue(before.contains(l) && !after.contains(l), l + " at " + c);
+                }
+            }
+        }
+    }
+
+    @Test
     void aCorrelationShiftKeepsAUnitDiagonalAndPositiveSemiDefiniteness() {
         // follows from the mathematics: (1 − f)R + f·11' is a convex combination of PSD unit-diagonal matrices
         AssetUniverse u = randomUniverse(12, 11);
@@ -138,7 +189,7 @@ class StressTests {
         StressRequest r = new StressRequest(u, m, new double[] {range[1] + 0.001}, List.of(), null, null);
         TargetPoint p = Stress.run(r, null).base().points().get(0);
         assertFalse(p.feasible());
-        assertTrue(p.reason().contains("outside the returns the mandate allows"), p.reason());
+        assertTrue(p.reason().contains("above the highest return the mandate allows"), p.reason());
     }
 
     @Test
