@@ -76,15 +76,17 @@ public final class RebalanceCommand extends BaseCommand {
     Double maxTurnover;
 
     @Option(names = "--max-trade", paramLabel = "ASSET=WEIGHT",
-            description = "Largest trade in one asset (repeatable); ASSET 'all' sets every asset.")
+            description = "Largest trade in one asset (repeatable; overrides the policy's trading.max_trade); ASSET "
+                    + "'all' sets every asset.")
     Map<String, String> maxTrade = new LinkedHashMap<>();
 
     @Option(names = "--min-trade", paramLabel = "WEIGHT", converter = Decimal.class,
             description = "Smallest trade kept: smaller trades are dropped, the asset frozen at today's weight and the "
-                    + "problem solved again (default 0: keep every trade).")
+                    + "problem solved again (default: the policy's trading.min_trade, else 0: keep every trade).")
     Double minTrade;
 
-    @Option(names = "--no-trade", paramLabel = "ASSET", description = "An asset that must not be traded (repeatable).")
+    @Option(names = "--no-trade", paramLabel = "ASSET",
+            description = "An asset that must not be traded (repeatable; added to the policy's trading.no_trade).")
     List<String> noTrade = new ArrayList<>();
 
     @Mixin
@@ -161,17 +163,19 @@ public final class RebalanceCommand extends BaseCommand {
         double tau = maxTurnover != null ? inputs.units().rate(maxTurnover)
                 : p.turnoverMax().isPresent() ? p.turnoverMax().getAsDouble() : Double.POSITIVE_INFINITY;
         double[] costs = p.costsBps() == null ? new double[n] : p.costsBps();
-        double[] trade = TradingOptions.perAsset("--max-trade", maxTrade, assets, Double.POSITIVE_INFINITY);
+        double[] trade = p.maxTrade() == null ? TradingOptions.perAsset("--max-trade", java.util.Map.of(), assets,
+                Double.POSITIVE_INFINITY) : p.maxTrade();
+        double[] given = TradingOptions.perAsset("--max-trade", maxTrade, assets, Double.NaN);
         for (int i = 0; i < n; i++) {
-            if (Double.isFinite(trade[i])) {
-                trade[i] = inputs.units().rate(trade[i]);
+            if (!Double.isNaN(given[i])) {
+                trade[i] = inputs.units().rate(given[i]);
             }
         }
-        Set<Integer> frozen = new TreeSet<>();
+        Set<Integer> frozen = new TreeSet<>(p.noTrade());
         for (String a : noTrade) {
             frozen.add(TradingOptions.asset("--no-trade", a, assets));
         }
-        double min = minTrade == null ? 0 : inputs.units().rate(minTrade);
+        double min = minTrade == null ? p.minTrade() : inputs.units().rate(minTrade);
         return new TradingLimits(tau, trade, costs, min, frozen);
     }
 }

@@ -15,6 +15,7 @@ import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutOption;
 import org.isorisk.cli.render.StressView;
 import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.ScenarioFile;
@@ -29,7 +30,6 @@ import org.isorisk.engine.stress.Shock;
 import org.isorisk.engine.stress.Stress;
 import org.isorisk.engine.stress.StressRequest;
 import org.isorisk.engine.stress.StressResult;
-import org.isorisk.engine.stress.TargetGrid;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -91,7 +91,7 @@ public final class StressCommand extends BaseCommand {
 
     @Override
     protected ExitCode execute() {
-        double[] grid = TargetGrid.parse(targets, "--targets");
+        double[] grid = Grid.parse(targets).targets(Double.NaN, Double.NaN);
         for (int i = 0; i < grid.length; i++) {
             grid[i] = inputs.units().rate(grid[i]);
         }

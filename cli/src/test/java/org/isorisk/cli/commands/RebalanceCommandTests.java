@@ -146,6 +146,23 @@ class RebalanceCommandTests {
         }
     }
 
+    @Test
+    void thePolicysTradingSectionFreezesItsNoTradeAssetsAndLimitsTrades() throws Exception {
+        String text = Files.readString(Path.of(policy)) + "\ntrading:\n  max_trade: {default: 0.04}\n"
+                + "  no_trade: [Infrastructure]\n";
+        String p2 = Run.file(dir, "policy-trading.yaml", text);
+        Run r = Run.of("rebalance", "--expected-returns", mu, "--covariance", cov, "--policy", p2, "--holdings",
+                holdings, "--target-return", "0.05", "--format", "json");
+        assertEquals(0, r.code(), r.toString());
+        for (JsonNode t : r.json().get("trades")) {
+            assertTrue(Math.abs(t.get("trade_weight").doubleValue()) <= 0.04 + 1e-9, t.toString());
+            if (t.get("asset").asText().equals("Infrastructure")) {
+                assertEquals(0.0, t.get("trade_weight").doubleValue());
+                assertEquals("no-trade", t.get("frozen").asText());
+            }
+        }
+    }
+
     private static double[] inf(int n) {
         double[] a = new double[n];
         java.util.Arrays.fill(a, Double.POSITIVE_INFINITY);

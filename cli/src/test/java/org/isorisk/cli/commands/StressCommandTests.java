@@ -65,8 +65,8 @@ class StressCommandTests {
     void aBadTargetGridIsBadInput() {
         Run r = Run.of("stress", "--expected-returns", mu, "--covariance", cov, "--targets", "0.06:0.04:0.01");
         assertEquals(2, r.code(), r.toString());
-        assertEquals("isorisk: error: --targets: the end is below the start (value '0.06:0.04:0.01'); fix: write the "
-                + "lower target first, e.g. 0.04:0.09:0.0025\n", r.err());
+        assertEquals("isorisk: error: the targets' end is below their start (value '0.06:0.04:0.01'); fix: write "
+                + "from:to:step with from at most to\n", r.err());
         assertEquals("", r.out());
     }
 
