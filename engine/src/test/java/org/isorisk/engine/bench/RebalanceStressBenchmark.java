@@ -59,15 +59,24 @@ public final class RebalanceStressBenchmark {
             RebalanceRequest r = new RebalanceRequest(u, m, Holdings.ofWeights(u.assets(), w0, 1e9),
                     TradingLimits.none(n).withMaxTurnover(0.2), new RebalanceObjective.TargetReturn(target + 0.005),
                     settings);
-            Rebalancer.rebalance(r); // warm-up
-            long c0 = cpu();
-            long t0 = System.nanoTime();
-            RebalanceResult res = Rebalancer.rebalance(r);
-            long t1 = System.nanoTime();
-            long c1 = cpu();
-            System.out.printf(Locale.ROOT, "rebalance: %.3f s wall, %.3f s CPU (turnover %.4f, volatility %.6f, "
-                            + "certificate %s)%n", (t1 - t0) / 1e9, (c1 - c0) / 1e9, res.turnover(),
-                    res.proposedVolatility(),
+            java.lang.management.ThreadMXBean mx = java.lang.management.ManagementFactory.getThreadMXBean();
+            double bestWall = Double.POSITIVE_INFINITY;
+            double bestCpu = Double.POSITIVE_INFINITY;
+            RebalanceResult res = null;
+            for (int k = 0; k < 6; k++) { // the first runs warm up the JIT; the best of the rest is reported
+                long c0 = mx.getCurrentThreadCpuTime();
+                long t0 = System.nanoTime();
+                res = Rebalancer.rebalance(r);
+                long t1 = System.nanoTime();
+                long c1 = mx.getCurrentThreadCpuTime();
+                if (k >= 2) {
+                    bestWall = Math.min(bestWall, (t1 - t0) / 1e9);
+                    bestCpu = Math.min(bestCpu, (c1 - c0) / 1e9);
+                }
+            }
+            System.out.printf(Locale.ROOT, "rebalance: best of 4 after warm-up: %.3f s wall, %.3f s CPU of the calling "
+                            + "thread (turnover %.4f, volatility %.6f, certificate %s)%n", bestWall, bestCpu,
+                    res.turnover(), res.proposedVolatility(),
                     res.proposal().certificate().passes() ? "passes" : "FAILS " + res.proposal().certificate());
         }
         if (!only.equals("rebalance")) {
