@@ -18,7 +18,8 @@ import org.isorisk.engine.solve.Allocator;
 import org.isorisk.engine.synthetic.FactorModels;
 
 /**
- * The critical line method through the public API on dense factor-model problems, fully invested, long-only,
+ * The critical line method through the public API on dense factor-model problems of two kinds (the bench
+ * module's {@link FactorModel} and the engine's market-factor {@link FactorModels}), fully invested, long-only,
  * every asset at most {@code max(5 %, 3/n)}: the whole efficient corner-portfolio frontier (every corner a
  * certified solution with its multipliers), the same with the inefficient branch, and one bounded
  * minimum-variance solve (the walk's end).
@@ -45,42 +46,53 @@ final class CriticalLineCase implements BenchCase {
         SolverSettings settings = SolverSettings.defaults().withThreads(options.threads());
         out.printf(Locale.ROOT, "java %s, %d thread(s); medians after %d warm-up run(s)%n",
                 System.getProperty("java.version"), settings.threads(), options.warmup());
-        out.printf(Locale.ROOT, "%6s %8s %6s %12s %12s %10s %10s %9s%n", "n", "corners", "free", "frontier ms",
-                "both ms", "minvar ms", "worst", "peak MB");
+        out.printf(Locale.ROOT, "%6s %-7s %8s %6s %12s %12s %10s %10s %9s%n", "n", "model", "corners", "free",
+                "frontier ms", "both ms", "minvar ms", "worst", "peak MB");
         for (int n : options.sizesOr(SIZES)) {
-            AssetUniverse u = FactorModel.universe(n, SEED + n);
-            Mandate m = FactorModels.longOnlyCapped(n);
-            int reps = options.repsOr(n >= 1000 ? 5 : 11);
-            Frontier both = Frontiers.mandate(u, m, Grid.none(), true, settings);
-            double worst = 0;
-            int free = 0;
-            for (Corner c : both.corners()) {
-                worst = Math.max(worst, c.portfolio().certificate().worst());
-                free = Math.max(free, c.free().size());
+            for (String model : List.of("bench", "market")) {
+                row(n, model, options, settings, out);
             }
-            for (Corner c : both.inefficientCorners()) {
-                worst = Math.max(worst, c.portfolio().certificate().worst());
-            }
-            if (worst > CERTIFICATE) {
-                out.printf(Locale.ROOT, "WARNING n=%d: a corner's certificate residual is %.2e%n", n, worst);
-            }
-            Timing.Result frontier = Timing.measure(options.warmup(), reps,
-                    () -> Frontiers.mandate(u, m, Grid.none(), settings).corners().size());
-            Timing.Result branches = Timing.measure(options.warmup(), reps,
-                    () -> Frontiers.mandate(u, m, Grid.none(), true, settings).inefficientCorners().size());
-            AllocationRequest mv = new AllocationRequest(u, m, Objective.minimumVariance(), Method.CRITICAL_LINE,
-                    settings);
-            Timing.Result minvar = Timing.measure(options.warmup(), reps, () -> {
-                Solution s = Allocator.solve(mv);
-                return s.variance();
-            });
-            out.printf(Locale.ROOT, "%6d %8d %6d %12.1f %12.1f %10.1f %10.1e %9.0f%n", n, both.corners().size(), free,
-                    1e3 * frontier.medianSeconds(), 1e3 * branches.medianSeconds(), 1e3 * minvar.medianSeconds(),
-                    worst, Math.max(frontier.peakHeapBytes(), branches.peakHeapBytes()) / 1048576.0);
         }
-        out.println("corners: efficient corner portfolios; free: largest free set; frontier ms: the efficient corner "
-                + "frontier; both ms: with the inefficient branch; minvar ms: one bounded minimum-variance solve; "
-                + "worst: largest certificate residual over all corners; peak MB: heap during the frontier runs "
-                + "(all pools, an upper bound).");
+        out.println("model bench: FactorModel (loadings of either sign; near the minimum-variance end nearly every "
+                + "asset is held); model market: engine.synthetic.FactorModels (a market factor every asset loads on "
+                + "positively; the long-only frontier holds few assets). corners: efficient corner portfolios; free: "
+                + "largest free set; frontier ms: the efficient corner frontier; both ms: with the inefficient "
+                + "branch; minvar ms: one bounded minimum-variance solve; worst: largest certificate residual over "
+                + "all corners; peak MB: heap during the frontier runs (all pools, an upper bound).");
+    }
+
+    private static void row(int n, String model, Options options, SolverSettings settings, PrintStream out)
+            throws Exception {
+        AssetUniverse u = model.equals("bench") ? FactorModel.universe(n, SEED + n)
+                : FactorModels.universe(n, FactorModels.DEFAULT_SEED);
+        Mandate m = FactorModels.longOnlyCapped(n);
+        int reps = options.repsOr(n >= 1000 ? 5 : 11);
+        Frontier both = Frontiers.mandate(u, m, Grid.none(), true, settings);
+        double worst = 0;
+        int free = 0;
+        for (Corner c : both.corners()) {
+            worst = Math.max(worst, c.portfolio().certificate().worst());
+            free = Math.max(free, c.free().size());
+        }
+        for (Corner c : both.inefficientCorners()) {
+            worst = Math.max(worst, c.portfolio().certificate().worst());
+        }
+        if (worst > CERTIFICATE) {
+            out.printf(Locale.ROOT, "WARNING n=%d %s: a corner's certificate residual is %.2e%n", n, model, worst);
+        }
+        Timing.Result frontier = Timing.measure(options.warmup(), reps,
+                () -> Frontiers.mandate(u, m, Grid.none(), settings).corners().size());
+        Timing.Result branches = Timing.measure(options.warmup(), reps,
+                () -> Frontiers.mandate(u, m, Grid.none(), true, settings).inefficientCorners().size());
+        AllocationRequest mv = new AllocationRequest(u, m, Objective.minimumVariance(), Method.CRITICAL_LINE,
+                settings);
+        Timing.Result minvar = Timing.measure(options.warmup(), reps, () -> {
+            Solution s = Allocator.solve(mv);
+            return s.variance();
+        });
+        out.printf(Locale.ROOT, "%6d %-7s %8d %6d %12.1f %12.1f %10.1f %10.1e %9.0f%n", n, model,
+                both.corners().size(), free, 1e3 * frontier.medianSeconds(), 1e3 * branches.medianSeconds(),
+                1e3 * minvar.medianSeconds(), worst,
+                Math.max(frontier.peakHeapBytes(), branches.peakHeapBytes()) / 1048576.0);
     }
 }

@@ -29,6 +29,15 @@ final class ErrorHandler implements CommandLine.IExecutionExceptionHandler, Comm
             ObjectNode o = errorObject(Status.INFEASIBLE.label(), e.getMessage());
             o.put("reason", e.reason().name().toLowerCase(Locale.ROOT).replace('_', '-'));
             o.set("constraints", ResultJson.strings(e.constraints()));
+            e.achievableReturns().ifPresent(r -> {
+                ObjectNode range = o.putObject("range");
+                ResultJson.number(range, "min", r[0]);
+                ResultJson.number(range, "max", r[1]);
+            });
+            e.endPortfolio().ifPresent(p -> {
+                ObjectNode end = o.putObject("end_portfolio");
+                p.forEach((k, v) -> ResultJson.number(end, k, v));
+            });
             return report(cl, ExitCode.NO_SOLUTION, e.getMessage(), json ? o : null, ms);
         }
         if (ex instanceof InputException || ex instanceof IsoriskException) {

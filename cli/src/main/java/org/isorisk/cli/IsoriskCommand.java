@@ -7,6 +7,7 @@ import java.util.Properties;
 import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.EstimateCommand;
+import org.isorisk.cli.commands.FrontierCommand;
 import org.isorisk.cli.commands.RebalanceCommand;
 import org.isorisk.cli.commands.RiskCommand;
 import org.isorisk.cli.commands.SolveCommand;
@@ -33,6 +34,7 @@ public final class IsoriskCommand implements Runnable {
     public static final List<Class<?>> COMMANDS = List.of(
             CheckCommand.class,
             SolveCommand.class,
+            FrontierCommand.class,
             EstimateCommand.class,
             RiskCommand.class,
             RebalanceCommand.class,

@@ -12,11 +12,14 @@ import java.util.Map;
 import java.util.OptionalDouble;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.Decimal;
+import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.CheckView;
 import org.isorisk.cli.render.DemoSummary;
+import org.isorisk.cli.render.FrontierView;
 import org.isorisk.cli.render.RiskView;
 import org.isorisk.cli.render.SolveView;
 import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
@@ -27,6 +30,7 @@ import org.isorisk.engine.io.UniverseFiles;
 import org.isorisk.engine.io.UniverseLoader;
 import org.isorisk.engine.io.Units;
 import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.risk.AssumptionSummary;
 import org.isorisk.engine.risk.RiskAnalysis;
@@ -45,12 +49,15 @@ import picocli.CommandLine.Option;
         description = {"Run everything on the invented sample fund (a fictional pension scheme, illustrative numbers, "
                 + "not market data): check, minimum-variance, target-return and tangency portfolios with their shadow "
                 + "prices, risk of the current holdings and of the proposal. Results (JSON, CSV, the summary and a copy "
-                + "of the inputs) go into one folder, written atomically."})
+                + "of the inputs) go into one folder, written atomically.",
+                "With the sample policy (policy.yaml) it also solves the minimum-variance and target-return portfolios "
+                        + "under the mandate, with their binding constraints explained, and the frontier under the "
+                        + "mandate (frontier.json, frontier.csv)."})
 public final class DemoCommand extends BaseCommand {
 
     /** The sample files, bundled in the jar from the repository's {@code sample-data/} folder. */
     public static final List<String> SAMPLE_FILES = List.of("expected_returns.csv", "covariance.csv",
-            "volatilities.csv", "correlation.csv", "holdings.csv", "benchmark.csv", "README.md");
+            "volatilities.csv", "correlation.csv", "holdings.csv", "benchmark.csv", "policy.yaml", "README.md");
 
     private static final List<String> REQUIRED = List.of("expected_returns.csv", "covariance.csv", "holdings.csv");
 
@@ -104,6 +111,24 @@ public final class DemoCommand extends BaseCommand {
         RiskView proposalView = new RiskView("the target-return proposal", proposal.risk(), OptionalDouble.empty(),
                 true, "the current holdings", current, te, prov, warnings);
 
+        Path policyFile = in.resolve("policy.yaml");
+        SolveView mandateMinVar = null;
+        SolveView mandateTarget = null;
+        FrontierView frontier = null;
+        if (Files.isRegularFile(policyFile)) {
+            PolicyOption.Loaded loaded = PolicyOption.of(policyFile).load(u);
+            Mandate m = loaded.mandate(Map.of());
+            mandateMinVar = SolveCommand.run(loaded.inputs(), m, Objective.minimumVariance(), Method.AUTO, Map.of(),
+                    loaded.name(), List.of(), warnings);
+            mandateTarget = SolveCommand.run(loaded.inputs(), m, Objective.targetReturn(target), Method.AUTO, Map.of(),
+                    loaded.name(), List.of(), warnings);
+            frontier = FrontierCommand.run(loaded, Grid.points(FrontierCommand.DEFAULT_POINTS), false);
+            json(dir.resolve("mandate-minimum-variance.json"), mandateMinVar.json());
+            json(dir.resolve("mandate-target-return.json"), mandateTarget.json());
+            json(dir.resolve("frontier.json"), frontier.json());
+            Files.writeString(dir.resolve("frontier.csv"), frontier.csv());
+        }
+
         json(dir.resolve("check.json"), check.json());
         json(dir.resolve("minimum-variance.json"), minVar.json());
         json(dir.resolve("target-return.json"), proposal.json());
@@ -111,7 +136,7 @@ public final class DemoCommand extends BaseCommand {
         json(dir.resolve("risk-current.json"), currentView.json());
         json(dir.resolve("risk-proposal.json"), proposalView.json());
         DemoSummary s = new DemoSummary(u, check.summary(), minVar, proposal, tangency, h, current, te, prov, warnings,
-                out);
+                out, mandateMinVar, mandateTarget, frontier);
         Files.writeString(dir.resolve("weights.csv"), s.weightsCsv());
         Files.writeString(dir.resolve("multipliers.csv"), s.multipliersCsv());
         Files.writeString(dir.resolve("risk.csv"), s.riskCsv());

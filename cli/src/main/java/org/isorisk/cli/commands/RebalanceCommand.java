@@ -14,13 +14,13 @@ import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.RebalanceView;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
 import org.isorisk.engine.io.PortfolioReader;
 import org.isorisk.engine.io.Provenance;
-import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.model.Policy;
 import org.isorisk.engine.rebalance.Holdings;
 import org.isorisk.engine.rebalance.RebalanceObjective;
@@ -46,10 +46,8 @@ public final class RebalanceCommand extends BaseCommand {
     @Mixin
     InputOptions inputs;
 
-    @Option(names = "--policy", paramLabel = "FILE",
-            description = "Mandate policy (YAML): bounds, groups, fixed weights, turnover.max, costs_bps. Without it "
-                    + "only the budget applies (short positions allowed).")
-    Path policy;
+    @Mixin
+    PolicyOption policyOption;
 
     @Option(names = "--holdings", paramLabel = "FILE", required = true,
             description = "Today's portfolio: CSV asset,weight or asset,market_value; cash is an asset (give the "
@@ -102,10 +100,11 @@ public final class RebalanceCommand extends BaseCommand {
 
     @Override
     protected ExitCode execute() {
-        LoadedUniverse u = inputs.load(true, "rebalance");
+        PolicyOption.Loaded pl = policyOption.load(inputs.load(true, "rebalance"));
+        LoadedUniverse u = pl.inputs();
         List<String> assets = u.assets();
         List<String> warnings = new ArrayList<>(u.warnings());
-        Policy p = TradingOptions.policy(policy, assets);
+        Policy p = pl.policy().orElseGet(() -> TradingOptions.budgetOnly(assets));
         PortfolioFile held = PortfolioReader.read(holdings, "holdings", assets, inputs.units());
         warnings.addAll(held.warnings());
         double size = fundSize == null ? Double.NaN : fundSize;
@@ -124,10 +123,6 @@ public final class RebalanceCommand extends BaseCommand {
         RebalanceResult r = Rebalancer.rebalance(req);
         double millis = (System.nanoTime() - t0) / 1e6;
         Provenance prov = u.provenance().withInput(held.source());
-        SourceFile ps = TradingOptions.source(policy, "policy");
-        if (ps != null) {
-            prov = prov.withInput(ps);
-        }
         emit(new RebalanceView(r, prov, warnings, millis), outOption.out());
         return ExitCode.OK;
     }

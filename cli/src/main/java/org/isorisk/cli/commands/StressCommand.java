@@ -13,13 +13,13 @@ import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.StressView;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.ScenarioFile;
-import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.model.Group;
 import org.isorisk.engine.model.Policy;
 import org.isorisk.engine.model.SolverSettings;
@@ -47,9 +47,8 @@ public final class StressCommand extends BaseCommand {
     @Mixin
     InputOptions inputs;
 
-    @Option(names = "--policy", paramLabel = "FILE",
-            description = "Mandate policy (YAML). Without it only the budget applies (short positions allowed).")
-    Path policy;
+    @Mixin
+    PolicyOption policyOption;
 
     @Option(names = "--targets", paramLabel = "FROM:TO:STEP", required = true,
             description = "Grid of return targets, decimals, e.g. 0.04:0.09:0.0025.")
@@ -95,10 +94,11 @@ public final class StressCommand extends BaseCommand {
         for (int i = 0; i < grid.length; i++) {
             grid[i] = inputs.units().rate(grid[i]);
         }
-        LoadedUniverse u = inputs.load(true, "stress");
+        PolicyOption.Loaded pl = policyOption.load(inputs.load(true, "stress"));
+        LoadedUniverse u = pl.inputs();
         List<String> assets = u.assets();
         List<String> warnings = new ArrayList<>(u.warnings());
-        Policy p = TradingOptions.policy(policy, assets);
+        Policy p = pl.policy().orElseGet(() -> TradingOptions.budgetOnly(assets));
         Map<String, List<Integer>> groups = new LinkedHashMap<>();
         for (Group g : p.mandate().groups()) {
             groups.put(g.name(), g.members());
@@ -123,10 +123,6 @@ public final class StressCommand extends BaseCommand {
             double d = inputs.units().rate(TradingOptions.decimal("--return-shift", e.getKey(), e.getValue()));
             list.add(new Scenario("return " + s.name() + " " + e.getValue().strip(), "",
                     List.of(new Shock.ReturnShift(s, d))));
-        }
-        SourceFile ps = TradingOptions.source(policy, "policy");
-        if (ps != null) {
-            prov = prov.withInput(ps);
         }
         SolverSettings settings = threads == null ? SolverSettings.defaults()
                 : SolverSettings.defaults().withThreads(Math.max(1, threads));

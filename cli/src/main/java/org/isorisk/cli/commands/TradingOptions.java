@@ -1,6 +1,5 @@
 package org.isorisk.cli.commands;
 
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Arrays;
@@ -10,31 +9,24 @@ import java.util.Map;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.Names;
 import org.isorisk.engine.io.NumberText;
-import org.isorisk.engine.io.PolicyReader;
 import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Policy;
 
-/** Reading pieces shared by {@code rebalance} and {@code stress}: the policy and asset=value options. */
+/** Reading pieces shared by {@code rebalance} and {@code stress}: the budget-only fallback and asset=value options. */
 final class TradingOptions {
     private TradingOptions() {
     }
 
-    /** The policy file read for the assets, or the budget alone (short positions allowed) without one. */
-    static Policy policy(Path file, List<String> assets) {
-        if (file == null) {
-            return new Policy(Mandate.fullyInvested(assets.size()), null, null, null, "(no policy: budget only)");
-        }
-        return PolicyReader.read(file, assets);
+    /** Without {@code --policy}: the budget alone (short positions allowed), no trading limits. */
+    static Policy budgetOnly(List<String> assets) {
+        return new Policy(Mandate.fullyInvested(assets.size()), null, null, null, "(no policy: budget only)");
     }
 
-    /** The policy file's fingerprint for the inputs list; null without a file. */
+    /** A file's fingerprint for the inputs list (scenario files). */
     static SourceFile source(Path file, String role) {
-        if (file == null) {
-            return null;
-        }
         try {
-            return SourceFile.ofText(role, file.toString(), Files.readString(file, StandardCharsets.UTF_8));
+            return SourceFile.of(role, file, Files.readAllBytes(file));
         } catch (java.io.IOException e) {
             throw InputException.of("cannot read the " + role + " file: " + e.getMessage()).file(file.toString())
                     .fix("check the path").build();

@@ -31,15 +31,26 @@ import org.isorisk.engine.risk.TrackingError;
  * @param provenance input files, holdings included
  * @param warnings   what reading found
  * @param folder     where the results were written
+ * @param mandateMinVar the minimum-variance portfolio under the sample policy; null without a policy file
+ * @param mandateTarget the target-return portfolio under the sample policy; null without a policy file
+ * @param frontier      the frontier under the sample policy; null without a policy file
  */
 public record DemoSummary(LoadedUniverse inputs, AssumptionSummary check, SolveView minVar, SolveView proposal,
                           SolveView tangency, PortfolioFile holdings, RiskDecomposition current, TrackingError te,
-                          Provenance provenance, List<String> warnings, Path folder) {
+                          Provenance provenance, List<String> warnings, Path folder, SolveView mandateMinVar,
+                          SolveView mandateTarget, FrontierView frontier) {
 
     /** The files the demo writes besides the copied inputs, in the order listed. */
     public static final List<String> FILES = List.of("summary.txt", "check.json", "minimum-variance.json",
             "target-return.json", "tangency.json", "risk-current.json", "risk-proposal.json", "weights.csv",
-            "multipliers.csv", "risk.csv");
+            "multipliers.csv", "risk.csv", "mandate-minimum-variance.json", "mandate-target-return.json",
+            "frontier.json", "frontier.csv");
+
+    /** The files written by this run: {@link #FILES}, without the mandate's when there was no policy file. */
+    public List<String> written() {
+        return mandateMinVar == null ? FILES.stream().filter(f -> !f.startsWith("mandate-") && !f.startsWith("frontier"))
+                .toList() : FILES;
+    }
 
     private List<SolveView> portfolios() {
         return List.of(minVar, proposal, tangency);
@@ -117,15 +128,81 @@ public record DemoSummary(LoadedUniverse inputs, AssumptionSummary check, SolveV
                 + Text.sci(current.eulerResidual()) + " and " + Text.sci(proposal.risk().eulerResidual()) + ").",
                 "   ", "   "));
 
+        if (mandateMinVar != null) {
+            b.append('\n').append(mandate());
+        }
+
         Set<String> notes = new LinkedHashSet<>();
         for (SolveView v : portfolios()) {
             notes.addAll(v.solution().notes());
         }
+        if (mandateMinVar != null) {
+            for (String n : mandateMinVar.solution().notes()) {
+                notes.add("Under the mandate, minimum variance: " + n);
+            }
+            for (String n : mandateTarget.solution().notes()) {
+                notes.add("Under the mandate, target return: " + n);
+            }
+            for (String n : frontier.notes()) {
+                notes.add("Frontier under the mandate: " + n);
+            }
+        }
         b.append(Sections.bullets("Notes:", new ArrayList<>(notes)));
         b.append(Sections.bullets("Warnings:", warnings));
-        b.append('\n').append(Text.wrap("Results written to " + folder + "/: " + String.join(", ", FILES)
+        b.append('\n').append(Text.wrap("Results written to " + folder + "/: " + String.join(", ", written())
                 + ", and a copy of the inputs in inputs/.", "", ""));
         b.append('\n').append(Text.caution());
+        return b.toString();
+    }
+
+    /** Section 5: the two portfolios under the mandate, their binding constraints, and the frontier. */
+    private String mandate() {
+        String pol = mandateMinVar.policy();
+        StringBuilder b = new StringBuilder(Text.wrap("5. Under the mandate of " + pol + " (bounds, asset-class "
+                + "ranges and linear limits apply; method: " + mandateTarget.solution().method().label() + ")", "",
+                "   "));
+        double m = ((org.isorisk.engine.model.Objective.TargetReturn) mandateTarget.objective()).target();
+        Text.Table t = new Text.Table("Asset", "Minimum variance", "Target return " + Text.pct(m),
+                "Without the mandate: target return " + Text.pct(m));
+        for (int i = 0; i < inputs.assets().size(); i++) {
+            t.row(inputs.assets().get(i), Text.pct(mandateMinVar.solution().weight(i)),
+                    Text.pct(mandateTarget.solution().weight(i)), Text.pct(proposal.solution().weight(i)));
+        }
+        t.row("Expected return", Text.pct(mandateMinVar.solution().expectedReturn()),
+                Text.pct(mandateTarget.solution().expectedReturn()), Text.pct(proposal.solution().expectedReturn()));
+        t.row("Volatility", Text.pct(mandateMinVar.solution().volatility()),
+                Text.pct(mandateTarget.solution().volatility()), Text.pct(proposal.solution().volatility()));
+        b.append(t.render("   "));
+        for (SolveView v : List.of(mandateMinVar, mandateTarget)) {
+            b.append("   ").append(v.title()).append(" under the mandate: binding constraints\n");
+            int slack = 0;
+            for (Multiplier x : v.solution().multipliers()) {
+                if (!x.binding()) {
+                    slack++;
+                    continue;
+                }
+                b.append(Text.wrap(x.constraint() + ": " + Text.num(x.variancePerUnit()) + " variance, "
+                        + Text.num(x.volatilityPerUnit()) + " volatility per unit. " + Explain.sentence(x), "     - ",
+                        "       "));
+            }
+            b.append(Text.wrap(slack + " other limits do not bind (shadow price 0). Certificate: "
+                    + (v.solution().certificate().passes() ? "passes" : "DOES NOT PASS") + " (largest KKT residual "
+                    + Text.sci(v.solution().certificate().worst()) + ", threshold "
+                    + Text.sci(v.solution().certificate().threshold()) + ").", "     ", "     "));
+        }
+        List<org.isorisk.engine.model.Solution> ps = frontier.frontier().points();
+        b.append(Text.wrap("Frontier under the mandate (" + ps.size() + " points from the minimum-variance return to the "
+                + "highest return the mandate allows; every point with its weights and binding constraints in "
+                + "frontier.json and frontier.csv):", "   ", "   "));
+        Text.Table f = new Text.Table("Return", "Volatility", "Without the mandate", "Return-target price (volatility)",
+                "Binding limits");
+        for (org.isorisk.engine.model.Solution p : ps) {
+            double price = p.multiplier("target_return").map(Multiplier::volatilityPerUnit).orElse(0.0);
+            f.row(Text.pct(p.expectedReturn()), Text.pct(p.volatility()),
+                    Text.pct(frontier.unconstrainedVolatility(p.expectedReturn())), Text.num(price),
+                    Integer.toString(FrontierView.binding(p).size()));
+        }
+        b.append(f.render("   "));
         return b.toString();
     }
 

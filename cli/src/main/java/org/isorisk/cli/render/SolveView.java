@@ -9,6 +9,7 @@ import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Certificate;
+import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
@@ -23,12 +24,13 @@ import org.isorisk.engine.risk.RiskDecomposition;
  * @param objective   what was asked
  * @param sharpe      Sharpe ratio for a tangency objective, NaN otherwise
  * @param fixed       fixed weights asked for, by asset (decimal)
+ * @param policy      file name of the policy the mandate comes from; null without one
  * @param inputs      the universe as loaded (provenance)
  * @param warnings    the loader's warnings and the command's own
  * @param solveMillis time in the solver
  */
 public record SolveView(Solution solution, RiskDecomposition risk, Objective objective, double sharpe,
-                        Map<String, Double> fixed, LoadedUniverse inputs, List<String> warnings, double solveMillis)
+                        Map<String, Double> fixed, String policy, LoadedUniverse inputs, List<String> warnings, double solveMillis)
         implements Rendered {
 
     public SolveView {
@@ -69,6 +71,11 @@ public record SolveView(Solution solution, RiskDecomposition risk, Objective obj
         o.set("objective", objectiveJson());
         ObjectNode f = o.putObject("fixed");
         fixed.forEach((k, v) -> ResultJson.number(f, k, v));
+        if (policy == null) {
+            o.putNull("policy");
+        } else {
+            o.put("policy", policy);
+        }
         o.set("risk", ResultJson.decomposition(risk, true));
         o.set("warnings", ResultJson.strings(warnings));
         o.set("inputs", ResultJson.provenance(inputs.provenance()));
@@ -80,6 +87,8 @@ public record SolveView(Solution solution, RiskDecomposition risk, Objective obj
     public String table() {
         StringBuilder b = new StringBuilder();
         b.append(title()).append(" (method: ").append(solution.method().label()).append(")\n");
+        b.append(policy == null ? "Mandate: the budget only (no policy file; short positions allowed)\n"
+                : "Mandate: policy " + policy + "\n");
         b.append(Sections.inputs(inputs.provenance())).append('\n');
         b.append(weights());
         b.append('\n');
@@ -90,7 +99,7 @@ public record SolveView(Solution solution, RiskDecomposition risk, Objective obj
             b.append("  Sharpe ratio     ").append(Text.num(sharpe)).append('\n');
         }
         b.append('\n').append(multipliers(solution));
-        b.append('\n').append(certificate(solution.certificate()));
+        b.append('\n').append(certificate(solution.certificate(), solution.method()));
         b.append(Sections.bullets("Notes:", solution.notes()));
         b.append(Sections.bullets("Warnings:", warnings));
         b.append('\n').append(Text.caution());
@@ -106,26 +115,43 @@ public record SolveView(Solution solution, RiskDecomposition risk, Objective obj
         return t.render("  ");
     }
 
-    /** The multiplier table with a sentence per constraint; shared with the demo summary. */
+    /**
+     * The multiplier table of the binding constraints with a sentence for each, then the names of the constraints
+     * that do not bind (their shadow price is zero); shared with the demo summary.
+     */
     public static String multipliers(Solution s) {
         StringBuilder b = new StringBuilder("Shadow prices (change of the optimal variance and volatility per unit "
                 + "of each constraint's limit):\n");
         Text.Table t = new Text.Table("Constraint", "Variance per unit", "Volatility per unit", "Binding");
+        List<String> slack = new java.util.ArrayList<>();
         for (Multiplier m : s.multipliers()) {
-            t.row(m.constraint(), Text.num(m.variancePerUnit()), Text.num(m.volatilityPerUnit()),
-                    m.binding() ? "yes" : "no");
+            if (m.binding()) {
+                t.row(m.constraint(), Text.num(m.variancePerUnit()), Text.num(m.volatilityPerUnit()), "yes");
+            } else {
+                slack.add(m.constraint());
+            }
         }
         b.append(t.render("  "));
-        for (Multiplier m : s.multipliers()) {
+        for (Multiplier m : s.binding()) {
             b.append(Text.wrap(Explain.sentence(m), "  - ", "    "));
+        }
+        if (!slack.isEmpty()) {
+            b.append(Text.wrap("Not binding (shadow price 0, moving their limits a little changes nothing): "
+                    + String.join(", ", slack) + ".", "  ", "    "));
         }
         return b.toString();
     }
 
     static String certificate(Certificate c) {
+        return certificate(c, Method.CLOSED_FORM);
+    }
+
+    /** The certificate line; bounded methods report the condition number of the reduced system they solved. */
+    static String certificate(Certificate c, Method method) {
+        String of = method == Method.CLOSED_FORM ? "of the covariance" : "of the reduced system solved";
         String line = "Certificate (KKT residuals): stationarity " + Text.sci(c.stationarity()) + ", primal "
                 + Text.sci(c.primal()) + ", dual " + Text.sci(c.dual()) + ", complementarity "
-                + Text.sci(c.complementarity()) + "; condition number of the covariance " + Text.num(c.conditionNumber())
+                + Text.sci(c.complementarity()) + "; condition number " + of + " " + Text.num(c.conditionNumber())
                 + (c.passes() ? "; passes (threshold " + Text.sci(c.threshold()) + ")."
                         : "; DOES NOT PASS the threshold " + Text.sci(c.threshold())
                                 + ": treat these numbers with suspicion.");
@@ -140,6 +166,7 @@ public record SolveView(Solution solution, RiskDecomposition risk, Objective obj
             c.comment("objective", title());
             c.comment("status", solution.status().label());
             c.comment("method", solution.method().label());
+            c.comment("policy", policy == null ? "none (budget only; short positions allowed)" : policy);
             c.comment("expected_return", CsvWriter.number(solution.expectedReturn()));
             c.comment("volatility", CsvWriter.number(solution.volatility()));
             c.comment("variance", CsvWriter.number(solution.variance()));
@@ -149,6 +176,9 @@ public record SolveView(Solution solution, RiskDecomposition risk, Objective obj
                         + Explain.sentence(m));
             }
             c.comment("certificate_passes", Boolean.toString(solution.certificate().passes()));
+            for (String n : solution.notes()) {
+                c.comment("note", n);
+            }
             c.row("asset", "weight", "marginal", "component", "share");
             for (Contribution k : risk.contributions()) {
                 c.row(k.asset(), k.weight(), k.marginal(), k.component(), k.share());

@@ -17,7 +17,11 @@ public final class Text {
 
     /** A decimal as a percent with two decimals: 0.0123 → "1.23 %". */
     public static String pct(double v) {
-        return Double.isFinite(v) ? Explain.percent(v) : "n/a";
+        if (!Double.isFinite(v)) {
+            return "n/a";
+        }
+        String s = Explain.percent(v);
+        return s.equals("-0.00 %") ? "0.00 %" : s; // a round-off below half a basis point shows no sign
     }
 
     /** A number with six significant digits. */

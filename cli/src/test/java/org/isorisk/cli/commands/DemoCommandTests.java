@@ -55,6 +55,22 @@ class DemoCommandTests {
         assertTrue(target.get("certificate").get("passes").asBoolean());
         assertEquals("tangency", Run.json(out.resolve("tangency.json")).get("objective").get("kind").asText());
 
+        assertTrue(flat.contains("5. Under the mandate of policy.yaml"), r.out());
+        assertTrue(flat.contains("Frontier under the mandate (11 points"), r.out());
+        JsonNode mandated = Run.json(out.resolve("mandate-target-return.json"));
+        assertEquals("numerical", mandated.get("method").asText());
+        assertEquals("policy.yaml", mandated.get("policy").asText());
+        assertEquals(0.05, mandated.get("expected_return").doubleValue(), 1e-12);
+        for (JsonNode m : mandated.get("multipliers")) {
+            if (m.get("binding").asBoolean()) {
+                assertTrue(flat.contains(m.get("sentence").asText()), m.get("constraint").asText());
+            }
+        }
+        JsonNode frontier = Run.json(out.resolve("frontier.json"));
+        assertEquals(11, frontier.get("points").size());
+        assertEquals(Caution.TEXT, frontier.get("caution").asText());
+        assertEquals(11, Csv.read(out.resolve("frontier.csv"), "frontier").rows().size());
+
         CsvTable weights = Csv.read(out.resolve("weights.csv"), "weights");
         assertEquals(12, weights.rows().size());
         assertEquals(Caution.TEXT, weights.meta("caution").orElseThrow().value());

@@ -49,6 +49,60 @@ public final class Frontiers {
     }
 
     /**
+     * The frontier of a general mandate (groups, general linear constraints: where the critical line method does
+     * not apply) sampled on the grid by the active-set QP of one {@link org.isorisk.engine.solve.SolverSession}:
+     * the mandate and the convexity of Σ are checked once, the minimum-variance portfolio is solved first and each
+     * target, in increasing order, is warm-started from the previous solution. There are no corner portfolios
+     * ({@link Frontier#corners()} is empty). {@link Grid#points(int)} spaces targets between the minimum-variance
+     * return and the highest return the mandate allows (the highest single-asset return times the budget when the
+     * mandate does not bound it). Targets the mandate cannot reach, or that have no solution, are listed in
+     * {@link Frontier#rejected()} with the reason.
+     *
+     * @param universe assets and assumptions (not modified)
+     * @param mandate  the mandate (any; with bounds only, {@link #mandate} gives the exact corners instead)
+     * @param grid     which targets to sample
+     * @param settings tolerances and limits; null for the defaults
+     * @throws NoSolutionException when the mandate admits no portfolio (with the constraints involved) or Σ is not
+     *                             positive definite
+     */
+    public static Frontier sampled(AssetUniverse universe, Mandate mandate, Grid grid, SolverSettings settings) {
+        SolverSettings s = settings == null ? SolverSettings.defaults() : settings;
+        org.isorisk.engine.solve.SolverSession session = Allocator.session(universe, mandate, s);
+        org.isorisk.engine.model.ReturnRange range = session.returnRange();
+        Solution minVar = session.solve(Objective.minimumVariance());
+        double low = minVar.expectedReturn();
+        double high = range.max();
+        if (!Double.isFinite(high)) {
+            high = Double.NEGATIVE_INFINITY;
+            for (double v : universe.expectedReturns()) {
+                high = Math.max(high, v * mandate.budget());
+            }
+        }
+        Grid g = grid == null ? Grid.none() : grid;
+        double[] targets = g.targets(low, Math.max(low, high)).clone();
+        java.util.Arrays.sort(targets);
+        List<Solution> points = new ArrayList<>();
+        List<RejectedTarget> rejected = new ArrayList<>();
+        Solution warm = minVar;
+        for (double t : targets) {
+            try {
+                Solution p = session.solve(Objective.targetReturn(t), warm);
+                points.add(p);
+                warm = p;
+            } catch (NoSolutionException e) {
+                rejected.add(new RejectedTarget(t, e.getMessage()));
+            }
+        }
+        MertonScalars ms;
+        try {
+            ms = Allocator.merton(Factored.of(universe, s), mandate.budget());
+        } catch (NoSolutionException e) {
+            ms = null; // no closed-form frontier to compare with (e.g. equal expected returns)
+        }
+        return new Frontier(List.of(), points, ms, low, range.max(), List.of(), range.min(), rejected);
+    }
+
+    /**
      * The unconstrained frontier (budget and return target only, short positions allowed) in closed form:
      * Merton's scalars and the portfolios at the grid's targets. {@link Grid#points(int)} spaces targets from the
      * global minimum-variance return to the highest expected return of a single asset. There are no corners.

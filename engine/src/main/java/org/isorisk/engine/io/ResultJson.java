@@ -16,7 +16,10 @@ import java.util.Map;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.model.Certificate;
+import org.isorisk.engine.model.Corner;
+import org.isorisk.engine.model.MertonScalars;
 import org.isorisk.engine.model.Multiplier;
+import org.isorisk.engine.model.RejectedTarget;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.risk.AssumptionSummary;
 import org.isorisk.engine.risk.Contribution;
@@ -80,6 +83,46 @@ public final class ResultJson {
         o.set("certificate", certificate(s.certificate()));
         ArrayNode notes = o.putArray("notes");
         s.notes().forEach(notes::add);
+        return o;
+    }
+
+    /**
+     * A corner portfolio: the solution's shape plus {@code change} ({@code enters}, {@code leaves}, ...),
+     * {@code asset} (null at an end where nothing changes), {@code description} and {@code free} (the free set on
+     * the stretch towards the minimum-variance portfolio).
+     */
+    public static ObjectNode corner(Corner c) {
+        ObjectNode o = solution(c.portfolio());
+        o.put("change", c.change());
+        if (c.asset() == null) {
+            o.putNull("asset");
+        } else {
+            o.put("asset", c.asset());
+        }
+        o.put("description", c.description());
+        o.set("free", strings(c.free()));
+        return o;
+    }
+
+    /** A frontier target the mandate cannot reach: {@code target} and {@code reason}. */
+    public static ObjectNode rejected(RejectedTarget r) {
+        ObjectNode o = object();
+        number(o, "target", r.target());
+        o.put("reason", r.reason());
+        return o;
+    }
+
+    /** Merton's (1972) scalars of the closed-form frontier with its minimum-variance point. */
+    public static ObjectNode merton(MertonScalars m) {
+        ObjectNode o = object();
+        number(o, "a", m.a());
+        number(o, "b", m.b());
+        number(o, "c", m.c());
+        number(o, "d", m.d());
+        number(o, "budget", m.budget());
+        number(o, "minimum_variance_return", m.minimumVarianceReturn());
+        number(o, "minimum_variance", m.minimumVariance());
+        number(o, "minimum_volatility", m.volatility(m.minimumVarianceReturn()));
         return o;
     }
 

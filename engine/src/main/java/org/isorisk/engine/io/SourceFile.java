@@ -37,6 +37,19 @@ public record SourceFile(String role, String path, String name, String sha256, l
         return new SourceFile(role, name, name, sha256(b), b.length);
     }
 
+    /**
+     * Describes a file that was read (e.g. a policy file) from its bytes.
+     *
+     * @param role  what the file was read as, e.g. {@code policy}
+     * @param path  the path as the user gave it
+     * @param bytes the file's content (not modified)
+     */
+    public static SourceFile of(String role, java.nio.file.Path path, byte[] bytes) {
+        java.nio.file.Path name = path.getFileName();
+        return new SourceFile(role, path.toString(), name == null ? path.toString() : name.toString(), sha256(bytes),
+                bytes.length);
+    }
+
     /** Lower-case hex SHA-256 of {@code bytes}. */
     public static String sha256(byte[] bytes) {
         try {

@@ -48,11 +48,7 @@ public final class UpdatableCholesky {
         double ss = 0;
         for (int j = 0; j < m; j++) {
             double[] lj = rows[j];
-            double s = column[j];
-            for (int p = 0; p < j; p++) {
-                s -= lj[p] * r[p];
-            }
-            double v = s / lj[j];
+            double v = (column[j] - dot(lj, r, j)) / lj[j];
             r[j] = v;
             ss += v * v;
         }
@@ -102,16 +98,59 @@ public final class UpdatableCholesky {
         size = m;
     }
 
+    /**
+     * After {@link #append}, the old matrix's solution of {@code S z = s} for the appended column s, by one
+     * back-substitution: the new row of L is {@code L⁻¹s} already.
+     *
+     * @param z receives z in its first {@code size() − 1} entries
+     */
+    public void borderSolution(double[] z) {
+        int m = size - 1;
+        double[] last = rows[m];
+        System.arraycopy(last, 0, z, 0, m);
+        for (int i = m - 1; i >= 0; i--) {
+            double[] li = rows[i];
+            double zi = z[i] / li[i];
+            z[i] = zi;
+            for (int k = 0; k < i; k++) {
+                z[k] -= li[k] * zi;
+            }
+        }
+    }
+
+    /**
+     * Column {@code p} of {@code S⁻¹}: solves {@code S v = e_p} (the forward pass starts at row p).
+     *
+     * @param v receives the column in its first {@code size()} entries
+     */
+    public void unitSolution(int p, double[] v) {
+        int m = size;
+        java.util.Arrays.fill(v, 0, m, 0.0);
+        v[p] = 1 / rows[p][p];
+        for (int i = p + 1; i < m; i++) {
+            double[] li = rows[i];
+            double s = 0;
+            for (int k = p; k < i; k++) {
+                s -= li[k] * v[k];
+            }
+            v[i] = s / li[i];
+        }
+        for (int i = m - 1; i >= 0; i--) {
+            double[] li = rows[i];
+            double vi = v[i] / li[i];
+            v[i] = vi;
+            for (int k = 0; k < i; k++) {
+                v[k] -= li[k] * vi;
+            }
+        }
+    }
+
     /** Solves {@code S x = b} in place for the first {@code size()} entries of {@code x}. */
     public void solveInPlace(double[] x) {
         int m = size;
         for (int i = 0; i < m; i++) {
             double[] li = rows[i];
-            double s = x[i];
-            for (int k = 0; k < i; k++) {
-                s -= li[k] * x[k];
-            }
-            x[i] = s / li[i];
+            x[i] = (x[i] - dot(li, x, i)) / li[i];
         }
         for (int i = m - 1; i >= 0; i--) {
             double[] li = rows[i];
@@ -121,6 +160,65 @@ public final class UpdatableCholesky {
                 x[k] -= li[k] * xi;
             }
         }
+    }
+
+    /**
+     * Solves {@code S x = b} in place for three right-hand sides at once, reading the factor twice in all (not
+     * twice per right-hand side); the three sums of each row are independent, so they also pipeline.
+     */
+    public void solveInPlace(double[] a, double[] b, double[] c) {
+        int m = size;
+        for (int i = 0; i < m; i++) {
+            double[] li = rows[i];
+            double sa = a[i];
+            double sb = b[i];
+            double sc = c[i];
+            for (int k = 0; k < i; k++) {
+                double l = li[k];
+                sa -= l * a[k];
+                sb -= l * b[k];
+                sc -= l * c[k];
+            }
+            double d = li[i];
+            a[i] = sa / d;
+            b[i] = sb / d;
+            c[i] = sc / d;
+        }
+        for (int i = m - 1; i >= 0; i--) {
+            double[] li = rows[i];
+            double d = li[i];
+            double xa = a[i] / d;
+            double xb = b[i] / d;
+            double xc = c[i] / d;
+            a[i] = xa;
+            b[i] = xb;
+            c[i] = xc;
+            for (int k = 0; k < i; k++) {
+                double l = li[k];
+                a[k] -= l * xa;
+                b[k] -= l * xb;
+                c[k] -= l * xc;
+            }
+        }
+    }
+
+    /** {@code Σ_{k<len} u[k] v[k]} with four partial sums (independent chains pipeline better). */
+    private static double dot(double[] u, double[] v, int len) {
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        double s3 = 0;
+        int k = 0;
+        for (; k + 3 < len; k += 4) {
+            s0 += u[k] * v[k];
+            s1 += u[k + 1] * v[k + 1];
+            s2 += u[k + 2] * v[k + 2];
+            s3 += u[k + 3] * v[k + 3];
+        }
+        for (; k < len; k++) {
+            s0 += u[k] * v[k];
+        }
+        return (s0 + s1) + (s2 + s3);
     }
 
     /** Entry (i, j) of L, zero above the diagonal. */

@@ -169,6 +169,17 @@ final class CriticalLine {
     private int nf;
     private double outSum;
 
+    /** {@code S⁻¹1}, {@code S⁻¹r_F}, {@code S⁻¹c_F} in free-set order, kept current through every change. */
+    private final double[] x1;
+    private final double[] xr;
+    private final double[] xg;
+    private final double[] work;
+    private int sinceRefresh;
+    private boolean starting = true;
+
+    /** Changes of the free set between full re-solves of the three systems (bounds the drift of the updates). */
+    private static final int REFRESH = 32;
+
     private double[] alpha;
     private double[] beta;
     private double nu0;
@@ -184,6 +195,10 @@ final class CriticalLine {
         this.c = new double[n];
         this.free = new int[n];
         this.chol = new UpdatableCholesky(n);
+        this.x1 = new double[n];
+        this.xr = new double[n];
+        this.xg = new double[n];
+        this.work = new double[n];
     }
 
     /**
@@ -315,6 +330,8 @@ final class CriticalLine {
                 insert(i);
             }
         }
+        starting = false;
+        refresh();
     }
 
     /** Non-frozen assets by decreasing r, ties by increasing index. */
@@ -469,27 +486,64 @@ final class CriticalLine {
     }
 
     /**
-     * For every asset i: {@code sa_i = Σ_{j∈F} σ_ij α_j}, {@code sb_i = Σ_{j∈F} σ_ij β_j}, as sums of the free
-     * assets' rows (Σ is symmetric): whole rows stream through memory, where gathering the free columns of every
-     * row would touch nearly all of Σ at each corner.
+     * For every out asset i: {@code sa_i = Σ_{j∈F} σ_ij α_j}, {@code sb_i = Σ_{j∈F} σ_ij β_j}. With few free
+     * assets, as sums of the free assets' rows (Σ is symmetric; whole rows stream through memory); with few out
+     * assets, as dot products along the out assets' rows. Either way Σ is read min(|F|, |out|) rows at a time.
      */
     private void crossProducts(double[] sa, double[] sb) {
         double[][] sigma = p.sigma;
-        for (int k = 0; k < nf; k++) {
-            double[] row = sigma[free[k]];
-            double a = alpha[k];
-            double b = beta[k];
-            if (b == 0) {
-                for (int i = 0; i < n; i++) {
-                    sa[i] += row[i] * a;
-                }
-            } else {
-                for (int i = 0; i < n; i++) {
-                    double v = row[i];
-                    sa[i] += v * a;
-                    sb[i] += v * b;
+        int out = 0;
+        for (int i = 0; i < n; i++) {
+            out += state[i] == LOWER || state[i] == UPPER ? 1 : 0;
+        }
+        if (nf <= out) {
+            for (int k = 0; k < nf; k++) {
+                double[] row = sigma[free[k]];
+                double a = alpha[k];
+                double b = beta[k];
+                if (b == 0) {
+                    for (int i = 0; i < n; i++) {
+                        sa[i] += row[i] * a;
+                    }
+                } else {
+                    for (int i = 0; i < n; i++) {
+                        double v = row[i];
+                        sa[i] += v * a;
+                        sb[i] += v * b;
+                    }
                 }
             }
+            return;
+        }
+        int m = nf;
+        int[] f = free;
+        double[] al = alpha;
+        double[] be = beta;
+        for (int i = 0; i < n; i++) {
+            if (state[i] != LOWER && state[i] != UPPER) {
+                continue;
+            }
+            double[] row = sigma[i];
+            double x0 = 0;
+            double x1 = 0;
+            double y0 = 0;
+            double y1 = 0;
+            int k = 0;
+            for (; k + 1 < m; k += 2) {
+                double v0 = row[f[k]];
+                double v1 = row[f[k + 1]];
+                x0 += v0 * al[k];
+                x1 += v1 * al[k + 1];
+                y0 += v0 * be[k];
+                y1 += v1 * be[k + 1];
+            }
+            for (; k < m; k++) {
+                double v = row[f[k]];
+                x0 += v * al[k];
+                y0 += v * be[k];
+            }
+            sa[i] = x0 + x1;
+            sb[i] = y0 + y1;
         }
     }
 
@@ -509,14 +563,31 @@ final class CriticalLine {
                         pos = k;
                     }
                 }
+                boolean low = e.kind == Kind.LEAVES_AT_LOWER;
+                double bound = low ? p.lo[i] : p.hi[i];
+                // Column pos of S⁻¹ gives the smaller system's solutions (bordering in reverse), c gaining σ_·i w_i.
+                double[] v = work;
+                chol.unitSolution(pos, v);
+                double vp = v[pos];
+                double f1 = x1[pos] / vp;
+                double fr = xr[pos] / vp;
+                double fg = (xg[pos] + bound) / vp;
+                for (int k = 0; k < nf; k++) {
+                    x1[k] -= v[k] * f1;
+                    xr[k] -= v[k] * fr;
+                    xg[k] -= v[k] * fg;
+                }
+                shiftOut(x1, pos, nf);
+                shiftOut(xr, pos, nf);
+                shiftOut(xg, pos, nf);
                 chol.remove(pos);
                 System.arraycopy(free, pos + 1, free, pos, nf - pos - 1);
                 nf--;
-                boolean low = e.kind == Kind.LEAVES_AT_LOWER;
                 state[i] = low ? LOWER : UPPER;
-                w[i] = low ? p.lo[i] : p.hi[i];
+                w[i] = bound;
                 outSum += w[i];
                 addToC(i, w[i]);
+                sinceRefresh++;
             }
             case ENTERS_FROM_LOWER, ENTERS_FROM_UPPER -> {
                 outSum -= w[i];
@@ -537,6 +608,15 @@ final class CriticalLine {
         }
     }
 
+    private static void shiftOut(double[] a, int pos, int len) {
+        System.arraycopy(a, pos + 1, a, pos, len - pos - 1);
+    }
+
+    /**
+     * Adds asset i to the free set. Unless starting, the three solutions are bordered: with {@code z = S⁻¹s}
+     * (s the new column) and the Schur complement {@code d − s'z}, each becomes {@code [x − z t; t]} with
+     * {@code t = (b_i − s'x)/(d − s'z)}; c has already lost σ_·i w_i, so S⁻¹c_F first loses {@code w_i z}.
+     */
     private void insert(int i) {
         double[] col = new double[nf];
         double[] row = p.sigma[i];
@@ -551,27 +631,62 @@ final class CriticalLine {
                             + "minimum-variance mix is not unique; fix: remove one of the duplicated assets or "
                             + "repair the covariance matrix", i + 1, rel), List.of());
         }
+        if (!starting) {
+            int m = nf;
+            double[] z = work;
+            chol.borderSolution(z);
+            double sz = 0;
+            double s1 = 0;
+            double sr = 0;
+            double sg = 0;
+            double wi = w[i];
+            for (int k = 0; k < m; k++) {
+                xg[k] -= wi * z[k];
+                sz += col[k] * z[k];
+                s1 += col[k] * x1[k];
+                sr += col[k] * xr[k];
+                sg += col[k] * xg[k];
+            }
+            double schur = row[i] - sz;
+            double t1 = (1 - s1) / schur;
+            double tr = (r[i] - sr) / schur;
+            double tg = (c[i] - sg) / schur;
+            for (int k = 0; k < m; k++) {
+                x1[k] -= z[k] * t1;
+                xr[k] -= z[k] * tr;
+                xg[k] -= z[k] * tg;
+            }
+            x1[m] = t1;
+            xr[m] = tr;
+            xg[m] = tg;
+            sinceRefresh++;
+        }
         free[nf++] = i;
     }
 
-    /** α, β, ν₀, ν₁ of the current free set. */
-    private void solveFree() {
-        int m = nf;
-        double[] x1 = new double[m];
-        double[] xr = new double[m];
-        double[] xg = new double[m];
-        boolean flat = true;
-        double r0 = r[free[0]];
-        for (int k = 0; k < m; k++) {
+    /** Solves the three systems afresh from the factor. */
+    private void refresh() {
+        for (int k = 0; k < nf; k++) {
             int i = free[k];
             x1[k] = 1;
             xr[k] = r[i];
             xg[k] = c[i];
-            flat &= r[i] == r0;
         }
-        chol.solveInPlace(x1);
-        chol.solveInPlace(xr);
-        chol.solveInPlace(xg);
+        chol.solveInPlace(x1, xr, xg);
+        sinceRefresh = 0;
+    }
+
+    /** α, β, ν₀, ν₁ of the current free set. */
+    private void solveFree() {
+        if (sinceRefresh >= REFRESH) {
+            refresh();
+        }
+        int m = nf;
+        boolean flat = true;
+        double r0 = r[free[0]];
+        for (int k = 0; k < m; k++) {
+            flat &= r[free[k]] == r0;
+        }
         double cc = 0;
         double aa = 0;
         double gg = 0;

@@ -472,7 +472,8 @@ final class MandateSweep {
                 "target return %s is above the highest return the mandate allows, %s (%s); achievable returns run "
                         + "from %s to %s; fix: choose a target of at most %s or loosen the upper bounds",
                 Explain.percent(target), Explain.percent(mMax), describe(end), Explain.percent(mMin),
-                Explain.percent(mMax), Explain.percent(mMax)), endNames(end, true));
+                Explain.percent(mMax), Explain.percent(mMax)), endNames(end, true), new double[] {mMin, mMax},
+                byName(end.weights()));
     }
 
     private NoSolutionException belowMinimum(double target, CriticalLine.Point end) {
@@ -482,7 +483,17 @@ final class MandateSweep {
                 "target return %s is below the lowest return the mandate allows, %s (%s); achievable returns run "
                         + "from %s to %s; fix: choose a target of at least %s or loosen the bounds",
                 Explain.percent(target), Explain.percent(mMin), describe(end), Explain.percent(mMin),
-                Explain.percent(mMax), Explain.percent(mMin)), endNames(end, false));
+                Explain.percent(mMax), Explain.percent(mMin)), endNames(end, false), new double[] {mMin, mMax},
+                byName(end.weights()));
+    }
+
+    /** Weights by asset name, in universe order (the end portfolio an infeasible target reports). */
+    private Map<String, Double> byName(double[] w) {
+        Map<String, Double> out = new java.util.LinkedHashMap<>();
+        for (int i = 0; i < n; i++) {
+            out.put(u.assets().get(i), w[i]);
+        }
+        return out;
     }
 
     /**
@@ -554,8 +565,13 @@ final class MandateSweep {
      */
     private Solution solution(double[] x, double lambda, double nu, byte[] st, double[] dir, Double target,
                               List<String> notes, double sign, double condition) {
+        return solution(x, lambda, nu, st, dir, target, notes, sign, condition, sparseProduct(sigma, x));
+    }
+
+    /** As above, with {@code sx = Σx} already computed afresh from x (for corners, in blocks). */
+    private Solution solution(double[] x, double lambda, double nu, byte[] st, double[] dir, Double target,
+                              List<String> notes, double sign, double condition, double[] sx) {
         factored();
-        double[] sx = sparseProduct(sigma, x);
         double var = 0;
         double ret = 0;
         for (int i = 0; i < n; i++) {
@@ -623,11 +639,19 @@ final class MandateSweep {
     }
 
     /**
-     * Σx as a sum of the rows of Σ for the non-zero entries of x (Σ is symmetric, so row j is column j): long-only
-     * portfolios hold few assets, and whole rows stream through memory instead of scattered entries.
+     * Σx, computed afresh from x: as a sum of the rows of Σ for the non-zero entries of x when they are few
+     * (long-only portfolios often hold few assets; Σ is symmetric, so row j is column j), else by the dense
+     * vectorised product.
      */
     private static double[] sparseProduct(double[][] sigma, double[] x) {
         int n = x.length;
+        int nnz = 0;
+        for (double v : x) {
+            nnz += v != 0 ? 1 : 0;
+        }
+        if (nnz > n / 4) {
+            return org.isorisk.engine.linalg.Dense.multiplySymmetric(sigma, x, 1);
+        }
         double[] y = new double[n];
         for (int j = 0; j < n; j++) {
             double xj = x[j];
@@ -647,28 +671,117 @@ final class MandateSweep {
     /** The efficient corners, from the minimum-variance end to the maximum-return end. */
     List<Corner> efficientCorners() {
         List<CriticalLine.Point> pts = efficient();
-        List<Corner> out = new ArrayList<>();
-        for (int j = pts.size() - 1; j >= 0; j--) {
-            out.add(corner(pts.get(j), j == 0, j == pts.size() - 1, mu, 1, false));
+        int k = pts.size();
+        Corner[] out = new Corner[k];
+        factored();
+        double[][] sx = products(pts);
+        forEach(k, j -> out[k - 1 - j] = corner(pts.get(j), j == 0, j == k - 1, mu, 1, false, sx[j]));
+        return List.of(out);
+    }
+
+    /**
+     * Runs {@code body} for 0..k-1, split over {@link SolverSettings#threads()} threads (corners are independent:
+     * each one's solution, multipliers and certificate depend only on its walk point).
+     */
+    private void forEach(int k, java.util.function.IntConsumer body) {
+        int threads = Math.min(settings.threads(), Math.max(1, k / 8));
+        if (threads <= 1) {
+            for (int j = 0; j < k; j++) {
+                body.accept(j);
+            }
+            return;
         }
-        return out;
+        java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(threads - 1, r -> {
+            Thread t = new Thread(r, "isorisk-corners");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            java.util.concurrent.atomic.AtomicInteger next = new java.util.concurrent.atomic.AtomicInteger();
+            Runnable work = () -> {
+                for (int j = next.getAndIncrement(); j < k; j = next.getAndIncrement()) {
+                    body.accept(j);
+                }
+            };
+            List<java.util.concurrent.Future<?>> done = new ArrayList<>();
+            for (int t = 1; t < threads; t++) {
+                done.add(pool.submit(work));
+            }
+            work.run();
+            for (java.util.concurrent.Future<?> f : done) {
+                f.get();
+            }
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted while assembling corner portfolios", e);
+        } catch (java.util.concurrent.ExecutionException e) {
+            if (e.getCause() instanceof RuntimeException re) {
+                throw re;
+            }
+            throw new IllegalStateException(e.getCause());
+        } finally {
+            pool.shutdownNow();
+        }
     }
 
     /** The inefficient corners, from the minimum-return end up to (and including) the minimum-variance end. */
     List<Corner> inefficientCorners() {
         List<CriticalLine.Point> pts = inefficient();
-        List<Corner> out = new ArrayList<>();
-        for (int j = 0; j < pts.size(); j++) {
-            out.add(corner(pts.get(j), j == 0, j == pts.size() - 1, negMu, -1, true));
-        }
+        int k = pts.size();
+        Corner[] out = new Corner[k];
+        factored();
+        double[][] sx = products(pts);
+        forEach(k, j -> out[j] = corner(pts.get(j), j == 0, j == k - 1, negMu, -1, true, sx[j]));
+        return List.of(out);
+    }
+
+    /** Corners whose Σw are computed together: each row of Σ is read once per block instead of once per corner. */
+    private static final int PRODUCT_BLOCK = 16;
+
+    /**
+     * {@code Σw} of every point, computed afresh from its weights, {@link #PRODUCT_BLOCK} points at a time: for
+     * each row j of Σ (its column j, Σ being symmetric) the block's {@code y += w_j·row_j}, so a frontier with
+     * thousands of corners streams Σ a few hundred times, not thousands.
+     */
+    private double[][] products(List<CriticalLine.Point> pts) {
+        int k = pts.size();
+        double[][] out = new double[k][];
+        int blocks = (k + PRODUCT_BLOCK - 1) / PRODUCT_BLOCK;
+        forEach(blocks, b -> {
+            int j0 = b * PRODUCT_BLOCK;
+            int j1 = Math.min(k, j0 + PRODUCT_BLOCK);
+            double[][] ws = new double[j1 - j0][];
+            double[][] ys = new double[j1 - j0][n];
+            for (int j = j0; j < j1; j++) {
+                ws[j - j0] = pts.get(j).weights();
+            }
+            for (int q = 0; q < n; q++) {
+                double[] row = sigma[q];
+                for (int j = 0; j < ws.length; j++) {
+                    double wq = ws[j][q];
+                    if (wq == 0) {
+                        continue;
+                    }
+                    double[] y = ys[j];
+                    for (int i = 0; i < n; i++) {
+                        y[i] += row[i] * wq;
+                    }
+                }
+            }
+            for (int j = j0; j < j1; j++) {
+                out[j] = ys[j - j0];
+            }
+        });
         return out;
     }
 
-    private Corner corner(CriticalLine.Point p, boolean first, boolean last, double[] dir, double sign, boolean ineff) {
+    private Corner corner(CriticalLine.Point p, boolean first, boolean last, double[] dir, double sign, boolean ineff,
+                          double[] sx) {
         double ret = dot(mu, p.weights());
         List<String> notes = new ArrayList<>();
         notes.add("Corner portfolio of the mandate frontier (critical line method).");
-        Solution s = solution(p.weights(), p.lambda(), p.budgetPrice(), p.state(), dir, ret, notes, sign, p.condition());
+        Solution s = solution(p.weights(), p.lambda(), p.budgetPrice(), p.state(), dir, ret, notes, sign, p.condition(),
+                sx);
         List<String> sentences = new ArrayList<>();
         String change;
         if (first) {

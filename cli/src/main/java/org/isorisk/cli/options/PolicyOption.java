@@ -1,0 +1,97 @@
+package org.isorisk.cli.options;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import java.util.Optional;
+import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.io.LoadedUniverse;
+import org.isorisk.engine.io.PolicyReader;
+import org.isorisk.engine.io.SourceFile;
+import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.Policy;
+import picocli.CommandLine.Option;
+
+/**
+ * {@code --policy FILE}: the mandate policy (YAML, see the README's "Policy file"), read by
+ * {@link PolicyReader} against the assets of the loaded universe. The one way every command takes a policy: mix it
+ * in with {@code @Mixin PolicyOption policyOption;} and call {@link #load(LoadedUniverse)} after the inputs are
+ * loaded.
+ */
+public final class PolicyOption {
+
+    @Option(names = "--policy", paramLabel = "FILE",
+            description = "Mandate policy (YAML): budget, bounds, groups, fixed weights, linear constraints, return "
+                    + "target rule. Without it only the budget applies and short positions are allowed.")
+    Path policy;
+
+    /** A policy option naming {@code file}, for commands that read a policy of their own (the demo). */
+    public static PolicyOption of(Path file) {
+        PolicyOption o = new PolicyOption();
+        o.policy = file;
+        return o;
+    }
+
+    /** The policy file, if one was given. */
+    public Optional<Path> path() {
+        return Optional.ofNullable(policy);
+    }
+
+    /**
+     * Reads the policy for the universe's assets and records the file (name and SHA-256) in the inputs'
+     * provenance.
+     *
+     * @param inputs the universe as loaded; its asset names are the ones the policy must use
+     * @return the inputs (with the policy file among them) and the policy, empty when no {@code --policy} was given
+     * @throws InputException naming the file, line and key of the first problem
+     */
+    public Loaded load(LoadedUniverse inputs) {
+        if (policy == null) {
+            return new Loaded(inputs, Optional.empty(), null);
+        }
+        Policy p = PolicyReader.read(policy, inputs.assets());
+        byte[] bytes;
+        try {
+            bytes = Files.readAllBytes(policy);
+        } catch (IOException e) {
+            throw InputException.of("cannot read the policy file: " + e.getMessage()).file(policy.toString())
+                    .fix("check the path given to --policy").build();
+        }
+        SourceFile source = SourceFile.of("policy", policy, bytes);
+        LoadedUniverse with = new LoadedUniverse(inputs.universe(), inputs.hasExpectedReturns(), inputs.spectrum(),
+                inputs.provenance().withInput(source), inputs.warnings());
+        return new Loaded(with, Optional.of(p), source.name());
+    }
+
+    /**
+     * A policy read against a universe.
+     *
+     * @param inputs the universe, the policy file recorded in its provenance when one was read
+     * @param policy the policy; empty without {@code --policy}
+     * @param name   the policy file's name (no folder), null without a policy
+     */
+    public record Loaded(LoadedUniverse inputs, Optional<Policy> policy, String name) {
+
+        /** True when a policy was given. */
+        public boolean present() {
+            return policy.isPresent();
+        }
+
+        /**
+         * The mandate to solve under: the policy's, with {@code extraFixed} (asset index → weight, e.g. from
+         * {@code --fix}) added to or replacing its fixed weights; without a policy, the budget alone with those
+         * fixed weights.
+         */
+        public Mandate mandate(Map<Integer, Double> extraFixed) {
+            Mandate base = policy.map(Policy::mandate).orElseGet(() -> Mandate.fullyInvested(inputs.assets().size()));
+            if (extraFixed.isEmpty()) {
+                return base;
+            }
+            Map<Integer, Double> fixed = new LinkedHashMap<>(base.fixed());
+            fixed.putAll(extraFixed);
+            return new Mandate(base.budget(), base.lower(), base.upper(), fixed, base.groups(), base.constraints());
+        }
+    }
+}
