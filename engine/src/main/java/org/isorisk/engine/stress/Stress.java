@@ -110,7 +110,7 @@ public final class Stress {
             points.add(new ScenarioPoint(p.target(), p.feasible(), p.volatility(), change, baseRisk, baseReturn,
                     turnover, p.marginalRisk(), p.binding(), p.reason()));
         }
-        return new ScenarioResult(sc, sh, s.maxTarget(), points);
+        return new ScenarioResult(sc, sh, s.maxTarget(), points, s);
     }
 
     /**
