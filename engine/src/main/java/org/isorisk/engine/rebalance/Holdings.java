@@ -1,6 +1,5 @@
 package org.isorisk.engine.rebalance;
 
-import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
@@ -125,16 +124,5 @@ public record Holdings(List<String> assets, double[] weights, double fundSize) {
             }
         }
         return w0;
-    }
-
-    /** The assets held that the universe lacks (empty when all are known). */
-    public List<String> unknownTo(AssetUniverse universe) {
-        List<String> out = new ArrayList<>();
-        for (String a : assets) {
-            if (universe.indexOf(a).isEmpty()) {
-                out.add(a);
-            }
-        }
-        return out;
     }
 }

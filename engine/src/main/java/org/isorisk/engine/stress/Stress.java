@@ -282,14 +282,7 @@ public final class Stress {
             Solution s = session == null
                     ? Allocator.solve(new AllocationRequest(u, m, Objective.targetReturn(t), null, settings))
                     : session.solve(Objective.targetReturn(t), warm);
-            double marginal = s.multiplier("target_return").map(Multiplier::volatilityPerUnit).orElse(Double.NaN);
-            List<String> binding = new ArrayList<>();
-            for (Multiplier q : s.binding()) {
-                if (!q.constraint().equals("budget") && !q.constraint().equals("target_return")) {
-                    binding.add(q.constraint());
-                }
-            }
-            return new TargetPoint(t, true, s, s.volatility(), marginal, binding, "");
+            return target(t, s);
         } catch (NoSolutionException e) {
             if (e.reason() == NoSolutionException.Reason.INFEASIBLE) {
                 return new TargetPoint(t, false, null, Double.NaN, Double.NaN, List.of(), e.getMessage());
