@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.util.List;
 import java.util.Properties;
+import org.isorisk.cli.commands.ChartCommand;
 import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.EstimateCommand;
@@ -39,6 +40,7 @@ public final class IsoriskCommand implements Runnable {
             RiskCommand.class,
             RebalanceCommand.class,
             StressCommand.class,
+            ChartCommand.class,
             DemoCommand.class);
 
     @Spec

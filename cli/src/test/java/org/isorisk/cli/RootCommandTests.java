@@ -16,7 +16,8 @@ class RootCommandTests {
     void withoutACommandItExitsTwoNamingTheCommands() {
         Run r = Run.of();
         assertEquals(2, r.code(), r.toString());
-        assertEquals("isorisk: error: name a command: check, solve, frontier, estimate, risk, rebalance, stress, demo (see 'isorisk --help')\n", r.err());
+        assertEquals("isorisk: error: name a command: check, solve, frontier, estimate, risk, rebalance, stress, chart, demo (see "
+                + "'isorisk --help')\n", r.err());
         assertEquals("", r.out());
     }
 

@@ -79,6 +79,11 @@ public final class DemoCommand extends BaseCommand {
             description = "Risk-free rate of the tangency portfolio (decimal; default: ${DEFAULT-VALUE}).")
     double riskFree;
 
+    @Option(names = "--charts", negatable = true, defaultValue = "true", fallbackValue = "true",
+            description = "Draw the committee charts into charts/ (PNG, SVG, PDF); --no-charts skips them, which is "
+                    + "faster (default: draw them).")
+    boolean charts;
+
     @Override
     protected ExitCode execute() {
         String[] summary = new String[1];
@@ -135,8 +140,11 @@ public final class DemoCommand extends BaseCommand {
         json(dir.resolve("tangency.json"), tangency.json());
         json(dir.resolve("risk-current.json"), currentView.json());
         json(dir.resolve("risk-proposal.json"), proposalView.json());
+        Path policy = in.resolve("policy.yaml");
+        String charts = this.charts ? DemoCharts.write(dir, u, Files.isRegularFile(policy) ? policy : null, prov,
+                current, target, riskFree) : null;
         DemoSummary s = new DemoSummary(u, check.summary(), minVar, proposal, tangency, h, current, te, prov, warnings,
-                out, mandateMinVar, mandateTarget, frontier);
+                out, mandateMinVar, mandateTarget, frontier, charts);
         Files.writeString(dir.resolve("weights.csv"), s.weightsCsv());
         Files.writeString(dir.resolve("multipliers.csv"), s.multipliersCsv());
         Files.writeString(dir.resolve("risk.csv"), s.riskCsv());

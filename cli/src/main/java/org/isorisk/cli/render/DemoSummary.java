@@ -34,11 +34,12 @@ import org.isorisk.engine.risk.TrackingError;
  * @param mandateMinVar the minimum-variance portfolio under the sample policy; null without a policy file
  * @param mandateTarget the target-return portfolio under the sample policy; null without a policy file
  * @param frontier      the frontier under the sample policy; null without a policy file
+ * @param charts        the paragraph that describes the charts written, or null when none were
  */
 public record DemoSummary(LoadedUniverse inputs, AssumptionSummary check, SolveView minVar, SolveView proposal,
                           SolveView tangency, PortfolioFile holdings, RiskDecomposition current, TrackingError te,
                           Provenance provenance, List<String> warnings, Path folder, SolveView mandateMinVar,
-                          SolveView mandateTarget, FrontierView frontier) {
+                          SolveView mandateTarget, FrontierView frontier, String charts) {
 
     /** The files the demo writes besides the copied inputs, in the order listed. */
     public static final List<String> FILES = List.of("summary.txt", "check.json", "minimum-variance.json",
@@ -151,6 +152,9 @@ public record DemoSummary(LoadedUniverse inputs, AssumptionSummary check, SolveV
         b.append(Sections.bullets("Warnings:", warnings));
         b.append('\n').append(Text.wrap("Results written to " + folder + "/: " + String.join(", ", written())
                 + ", and a copy of the inputs in inputs/.", "", ""));
+        if (charts != null) {
+            b.append('\n').append(Text.wrap(charts, "", ""));
+        }
         b.append('\n').append(Text.caution());
         return b.toString();
     }

@@ -34,6 +34,17 @@ class DemoCommandTests {
         for (String f : DemoCommand.SAMPLE_FILES) {
             assertTrue(Files.isRegularFile(out.resolve("inputs").resolve(f)), f);
         }
+        // every chart in every format, each a real file of its kind (the chart tests check their content)
+        for (String kind : DemoCharts.KINDS) {
+            for (String ext : new String[] {"png", "svg", "pdf"}) {
+                Path c = out.resolve("charts").resolve(kind + "." + ext);
+                assertTrue(Files.size(c) > 10_000, c.toString());
+            }
+            assertEquals("%PDF-", new String(Files.readAllBytes(out.resolve("charts").resolve(kind + ".pdf")), 0, 5,
+                    java.nio.charset.StandardCharsets.US_ASCII));
+        }
+        assertTrue(r.out().replaceAll("\\s+", " ").contains("Charts in charts/ (PNG at print resolution, SVG, PDF): "
+                + "frontier, weights, marginal-risk, risk-contributions."), r.out());
         assertEquals(r.out(), Files.readString(out.resolve("summary.txt")));
         String flat = r.out().replaceAll("\\s+", " ");
         assertTrue(flat.contains("Fernhollow Regional Pension Scheme (fictional)"), r.out());
@@ -82,9 +93,10 @@ class DemoCommandTests {
     @Test
     void aSecondRunReplacesTheFolderButAForeignFolderIsLeftAlone() throws IOException {
         Path out = dir.resolve("demo");
-        assertEquals(0, Run.of("demo", "--out", out.toString()).code());
+        assertEquals(0, Run.of("demo", "--no-charts", "--out", out.toString()).code());
         Files.writeString(out.resolve("stale.txt"), "from an earlier run");
-        assertEquals(0, Run.of("demo", "--out", out.toString()).code());
+        assertEquals(0, Run.of("demo", "--no-charts", "--out", out.toString()).code());
+        assertFalse(Files.exists(out.resolve("charts")), "--no-charts draws none");
         assertFalse(Files.exists(out.resolve("stale.txt")));
 
         Path mine = Files.createDirectory(dir.resolve("mine"));
