@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.util.List;
 import java.util.Properties;
+import org.isorisk.cli.commands.ChartCommand;
 import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.EstimateCommand;
@@ -36,6 +37,7 @@ public final class IsoriskCommand implements Runnable {
             FrontierCommand.class,
             EstimateCommand.class,
             RiskCommand.class,
+            ChartCommand.class,
             PackCommand.class,
             DemoCommand.class);
 

@@ -1,5 +1,6 @@
 package org.isorisk.cli.commands;
 
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
@@ -10,18 +11,26 @@ import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutOption;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.FrontierView;
+import org.isorisk.engine.chart.AssetColours;
+import org.isorisk.engine.chart.ChartContext;
+import org.isorisk.engine.chart.ChartFormat;
+import org.isorisk.engine.chart.ChartSettings;
+import org.isorisk.engine.chart.Charts;
+import org.isorisk.engine.chart.Figure;
+import org.isorisk.engine.chart.FrontierChartData;
 import org.isorisk.engine.frontier.Frontiers;
 import org.isorisk.engine.frontier.Grid;
+import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.Units;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Method;
 import org.isorisk.engine.solve.Allocator;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
+import picocli.CommandLine;
 
 /** {@code isorisk frontier}: corner portfolios and a sampled efficient frontier, with the unconstrained one beside. */
 @Command(name = "frontier", mixinStandardHelpOptions = true, sortOptions = false,
@@ -59,6 +68,11 @@ public final class FrontierCommand extends BaseCommand {
                     + "return; critical line method).")
     boolean inefficient;
 
+    @Option(names = "--chart", paramLabel = "FILE",
+            description = "Also draw the frontier chart into FILE; the extension gives the format: .png (twice the "
+                    + "chart's size, for print), .svg or .pdf.")
+    Path chart;
+
     @Mixin
     FormatOption formatOption;
 
@@ -80,10 +94,25 @@ public final class FrontierCommand extends BaseCommand {
             throw new CommandLine.ParameterException(spec.commandLine(),
                     "--points must be 0 or more (0 lists the corner portfolios only), not " + points);
         }
+        if (chart != null) {
+            ChartFormat.fromFileName(chart.toString()); // refuse an unknown chart format before any work
+        }
         PolicyOption.Loaded loaded = policyOption.load(inputs.load(true, "frontier"));
         Grid grid = points != null ? Grid.points(points) : targets != null ? explicit(targets, inputs.units())
                 : Grid.points(DEFAULT_POINTS);
-        emit(run(loaded, grid, inefficient), outOption.out());
+        FrontierView view = run(loaded, grid, inefficient);
+        Figure fig = null;
+        if (chart != null) {
+            LoadedUniverse u = loaded.inputs();
+            fig = Charts.frontier(FrontierChartData.of(u.universe(), view.frontier()),
+                    ChartContext.of(u.provenance(), null), AssetColours.of(u.assets()), ChartSettings.defaults());
+        }
+        emit(view, outOption.out());
+        if (fig != null) {
+            ChartCommand.writeFile(fig, chart, ChartSettings.defaults());
+            err().println("isorisk: wrote " + chart);
+            err().flush();
+        }
         return ExitCode.OK;
     }
 

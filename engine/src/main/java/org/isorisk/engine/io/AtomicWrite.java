@@ -1,6 +1,7 @@
 package org.isorisk.engine.io;
 
 import java.io.IOException;
+import java.io.OutputStream;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
@@ -29,6 +30,12 @@ public final class AtomicWrite {
     @FunctionalInterface
     public interface TextBody {
         void write(Writer w) throws IOException;
+    }
+
+    /** Writes bytes to an {@link OutputStream} (charts, images). */
+    @FunctionalInterface
+    public interface BinaryBody {
+        void write(OutputStream out) throws IOException;
     }
 
     /** Fills a (temporary) folder. */
@@ -60,6 +67,35 @@ public final class AtomicWrite {
             tmp = null;
         } catch (IOException e) {
             throw InputException.of("the output file cannot be written (" + reason(e) + ")").file(target.toString())
+                    .fix("check that the folder is writable, or choose another --out").build();
+        } finally {
+            deleteQuietly(tmp);
+        }
+    }
+
+    /**
+     * Writes the binary file {@code target} atomically (a chart, an image); parent folders are created.
+     *
+     * @throws InputException when the target cannot be written (named, with a fix)
+     */
+    public static void bytes(Path target, BinaryBody body) {
+        Path abs = target.toAbsolutePath();
+        Path parent = parentOf(abs, target);
+        if (Files.isDirectory(abs)) {
+            throw InputException.of("the output path is a folder").file(target.toString())
+                    .fix("give a file name, e.g. " + target.resolve("chart.png")).build();
+        }
+        Path tmp = null;
+        try {
+            tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
+            try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp,
+                    StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE))) {
+                body.write(out);
+            }
+            move(tmp, abs);
+            tmp = null;
+        } catch (IOException e) {
+            throw InputException.of("the output file cannot be written: " + e.getMessage()).file(target.toString())
                     .fix("check that the folder is writable, or choose another --out").build();
         } finally {
             deleteQuietly(tmp);

@@ -53,6 +53,13 @@ public final class Allocator {
     public static Solution solve(AllocationRequest r, Solution warmStart) {
         Mandate m = r.mandate();
         Method method = r.method();
+        if (method == Method.AUTO && !m.equalitiesOnly()) {
+            // closed form when nothing binds (issue 3's method choice); else a bounded method below
+            Solution interior = InteriorShortcut.tryClosedForm(r);
+            if (interior != null) {
+                return interior;
+            }
+        }
         if (method == Method.AUTO) {
             if (m.equalitiesOnly()) {
                 method = Method.CLOSED_FORM;
