@@ -443,7 +443,7 @@ public final class NotebookWriter {
             data.put("image/svg+xml", c.svg());
             data.put("text/plain", c.title());
             out.putObject("metadata");
-            markdown("chart-" + c.name() + "-title", "### " + Text.markdown(c.title()));
+            // no heading of its own: the chart image carries its title
             code("chart-" + c.name(), src, List.of(out));
             if (!c.caption().isBlank()) {
                 markdown("chart-" + c.name() + "-caption", "*" + Text.markdown(c.caption()) + "*");

@@ -27,7 +27,10 @@ import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.PackLayout;
 import org.isorisk.notebooks.folder.PackFiles;
 import org.isorisk.notebooks.folder.PackFolder;
+import org.isorisk.engine.chart.ChartContext;
+import org.isorisk.engine.chart.ChartSettings;
 import org.isorisk.notebooks.pack.ChartMaker;
+import org.isorisk.notebooks.pack.EngineCharts;
 import org.isorisk.notebooks.pack.PackRunner;
 import org.isorisk.notebooks.pack.PackSpec;
 import org.isorisk.notebooks.pack.PackSpecReader;
@@ -150,10 +153,16 @@ public final class PackCommand extends BaseCommand {
         parameters.add(new PackContent.Parameter("Policy", policy == null
                 ? "none: only the budget applies, short positions allowed" : policy.getFileName().toString()));
         parameters.add(new PackContent.Parameter("Units of the inputs", units.label()));
+        org.isorisk.engine.io.Provenance prov = u.provenance();
+        for (SourceFile s : sources) {
+            if (!prov.inputs().contains(s)) {
+                prov = prov.withInput(s); // the holdings too, so the charts' input hash covers every input
+            }
+        }
+        ChartMaker charts = new EngineCharts(ChartContext.of(prov, spec.fund()), ChartSettings.defaults());
         PackRunner.Outcome o = PackRunner.run(new PackRunner.Request(u.universe(), mandate, spec, weights,
                 u.provenance().scenario() == null ? "" : "Inputs: " + u.provenance().scenario() + ".", version, now,
-                parameters, recorded, notes,
-                new PackCharts(org.isorisk.engine.chart.ChartContext.of(u.provenance(), spec.fund()))));
+                parameters, recorded, notes, charts));
 
         com.fasterxml.jackson.databind.node.ObjectNode params = spec.toJson();
         params.put("policy", policy == null ? null : policy.getFileName().toString());
