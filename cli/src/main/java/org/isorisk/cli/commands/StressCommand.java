@@ -15,6 +15,12 @@ import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutOption;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.StressView;
+import org.isorisk.engine.chart.ChartContext;
+import org.isorisk.engine.chart.ChartFormat;
+import org.isorisk.engine.chart.ChartSettings;
+import org.isorisk.engine.chart.Charts;
+import org.isorisk.engine.chart.Figure;
+import org.isorisk.engine.chart.StressCurve;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.io.LoadedUniverse;
@@ -25,11 +31,14 @@ import org.isorisk.engine.model.Policy;
 import org.isorisk.engine.model.SolverSettings;
 import org.isorisk.engine.stress.CorrelationRepair;
 import org.isorisk.engine.stress.Scenario;
+import org.isorisk.engine.stress.ScenarioResult;
 import org.isorisk.engine.stress.Scope;
 import org.isorisk.engine.stress.Shock;
 import org.isorisk.engine.stress.Stress;
 import org.isorisk.engine.stress.StressRequest;
 import org.isorisk.engine.stress.StressResult;
+import org.isorisk.engine.stress.Sweep;
+import org.isorisk.engine.stress.TargetPoint;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -77,6 +86,11 @@ public final class StressCommand extends BaseCommand {
     @Option(names = "--quiet", description = "No progress on stderr.")
     boolean quiet;
 
+    @Option(names = "--chart", paramLabel = "FILE",
+            description = "Also draw the stress overlay (minimum volatility against the target, base and every "
+                    + "scenario) into FILE; the extension gives the format: .png, .svg or .pdf.")
+    Path chart;
+
     @Mixin
     FormatOption formatOption;
 
@@ -90,6 +104,9 @@ public final class StressCommand extends BaseCommand {
 
     @Override
     protected ExitCode execute() {
+        if (chart != null) {
+            ChartFormat.fromFileName(chart.toString()); // refuse an unknown chart format before any work
+        }
         double[] grid = Grid.parse(targets).targets(Double.NaN, Double.NaN);
         for (int i = 0; i < grid.length; i++) {
             grid[i] = inputs.units().rate(grid[i]);
@@ -134,8 +151,49 @@ public final class StressCommand extends BaseCommand {
             r = Stress.run(req, quiet ? null : bar);
         }
         double millis = (System.nanoTime() - t0) / 1e6;
+        if (chart != null) {
+            List<StressCurve> curves = new ArrayList<>();
+            List<String> left = new ArrayList<>();
+            addCurve(curves, left, "base", r.base());
+            for (ScenarioResult s : r.scenarios()) {
+                addCurve(curves, left, s.scenario().name(), s.sweep());
+            }
+            if (!left.isEmpty()) {
+                warnings.add("left out of the chart (fewer than two feasible targets): " + String.join(", ", left));
+            }
+            if (curves.isEmpty() || !curves.get(0).name().equals("base")) {
+                throw InputException.of("the stress chart needs at least two feasible targets under the base "
+                        + "assumptions").fix("choose targets within the achievable range, "
+                        + org.isorisk.engine.explain.Explain.percent(r.base().minTarget()) + " to "
+                        + org.isorisk.engine.explain.Explain.percent(r.base().maxTarget())).build();
+            }
+            Figure fig = Charts.stressCurves(curves, ChartContext.of(prov, null), ChartSettings.defaults());
+            ChartCommand.writeFile(fig, chart, ChartSettings.defaults());
+            err().println("isorisk: wrote " + chart);
+        }
         emit(new StressView(r, prov, warnings, millis), outOption.out());
         return ExitCode.OK;
+    }
+
+    /** The feasible targets of a sweep as one curve of the overlay; named in {@code left} when too few. */
+    private static void addCurve(List<StressCurve> curves, List<String> left, String name, Sweep sweep) {
+        List<double[]> pts = new ArrayList<>();
+        for (TargetPoint p : sweep.points()) {
+            if (p.feasible()) {
+                pts.add(new double[] {p.volatility(), p.target()});
+            }
+        }
+        if (pts.size() < 2) {
+            left.add(name);
+            return;
+        }
+        double[] v = new double[pts.size()];
+        double[] m = new double[pts.size()];
+        for (int i = 0; i < pts.size(); i++) {
+            v[i] = pts.get(i)[0];
+            m[i] = pts.get(i)[1];
+        }
+        curves.add(new StressCurve(name, v, m));
     }
 
     private static Scope scope(String name, List<String> assets, Map<String, List<Integer>> groups) {

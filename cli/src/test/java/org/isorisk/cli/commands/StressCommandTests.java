@@ -62,6 +62,28 @@ class StressCommandTests {
     }
 
     @Test
+    void theStressOverlayChartIsWrittenBesideTheTable() throws Exception {
+        Path png = dir.resolve("stress.png");
+        Run r = Run.of("stress", "--expected-returns", mu, "--covariance", cov, "--policy", policy, "--targets",
+                "0.045:0.06:0.0025", "--vol-multiplier", "1.3", "--correlation-shift", "0.4", "--quiet", "--chart",
+                png.toString());
+        assertEquals(0, r.code(), r.toString());
+        byte[] b = Files.readAllBytes(png);
+        assertTrue(b.length > 1000 && (b[0] & 0xff) == 0x89 && b[1] == 'P' && b[2] == 'N' && b[3] == 'G',
+                "a PNG file (magic bytes)");
+        assertTrue(r.err().contains("isorisk: wrote " + png), r.err());
+        assertTrue(r.out().contains("Caution: "), r.out());
+    }
+
+    @Test
+    void anUnknownChartFormatIsRefusedBeforeAnyWork() {
+        Run r = Run.of("stress", "--expected-returns", mu, "--covariance", cov, "--targets", "0.04:0.05:0.01",
+                "--chart", dir.resolve("stress.bmp").toString());
+        assertEquals(2, r.code(), r.toString());
+        assertEquals("", r.out());
+    }
+
+    @Test
     void aBadTargetGridIsBadInput() {
         Run r = Run.of("stress", "--expected-returns", mu, "--covariance", cov, "--targets", "0.06:0.04:0.01");
         assertEquals(2, r.code(), r.toString());

@@ -107,17 +107,22 @@ public final class AtomicWrite {
         Path tmp = null;
         try {
             tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
+            PENDING.add(tmp);
             try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp,
                     StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE))) {
                 body.write(out);
             }
             move(tmp, abs);
+            PENDING.remove(tmp);
             tmp = null;
         } catch (IOException e) {
             throw InputException.of("the output file cannot be written: " + e.getMessage()).file(target.toString())
                     .fix("check that the folder is writable, or choose another --out").build();
         } finally {
             deleteQuietly(tmp);
+            if (tmp != null) {
+                PENDING.remove(tmp);
+            }
         }
     }
 
