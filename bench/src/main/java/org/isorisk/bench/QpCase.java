@@ -124,8 +124,7 @@ final class QpCase implements BenchCase {
                 + "tight ms: CVXOPT's one solve at its default tolerances / at 1e-13; cvx sw ms: CVXOPT's "
                 + TARGETS + " targets one by one (default tolerances); ratio, tight, sweep: isorisk/CVXOPT for "
                 + "each; |dw|: largest weight difference from CVXOPT's tight solve; peak MB: heap during the "
-                + "isorisk runs (all pools, an upper bound); target: ratio <= " + TARGET_RATIO + " with worst <= "
-                + CERTIFICATE + " (issue 3).");
+                + "isorisk runs (all pools, an upper bound); target: ratio <= 0.5 with worst <= 1e-9 (issue 3).");
     }
 
     /** {@link #TARGETS} returns strictly between the minimum-variance return and the mandate's highest. */

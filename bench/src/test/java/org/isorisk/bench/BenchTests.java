@@ -120,6 +120,17 @@ class BenchTests {
     }
 
     @Test
+    void theCriticalLineVerdictAppliesIssueThreesBudgetsAtFiveHundredAndTwoThousandOnly() {
+        assertEquals("met", CriticalLineCase.verdict(500, 0.19, 1L << 30, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(500, 0.21, 1L << 20, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(500, 0.1, 1L << 20, 1e-8));
+        assertEquals("met", CriticalLineCase.verdict(2000, 4.9, (2L << 30) - 1, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(2000, 4.9, 2L << 30, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(2000, 5.1, 1L << 20, 1e-12));
+        assertEquals("-", CriticalLineCase.verdict(1000, 100, 1L << 40, 1));
+    }
+
+    @Test
     void generatedProblemsAreReproducibleAndPositiveDefinite() {
         AssetUniverse a = FactorModel.universe(150, 3);
         AssetUniverse b = FactorModel.universe(150, 3);
