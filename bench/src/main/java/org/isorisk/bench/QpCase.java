@@ -80,6 +80,10 @@ final class QpCase implements BenchCase {
                     settings);
             Timing.Result checked = Timing.measure(options.warmup(), Math.max(3, reps / 3),
                     () -> Allocator.solve(request).variance());
+            AllocationRequest auto = request.withMethod(Method.AUTO);
+            Solution autoSolution = Allocator.solve(auto);
+            Timing.Result autoTime = Timing.measure(options.warmup(), Math.max(3, reps / 3),
+                    () -> Allocator.solve(auto).variance());
             Timing.Result sweep = Timing.measure(options.warmup(), n >= 1000 ? 3 : 5, () -> {
                 Solution p = s;
                 double sum = 0;
@@ -104,6 +108,12 @@ final class QpCase implements BenchCase {
                         minvar.medianSeconds() / c.tightSeconds(), sweep.medianSeconds() / c.sweepSeconds(),
                         c.weightsDiffTight());
                 verdict = ratio <= TARGET_RATIO && worst <= CERTIFICATE ? "met" : "MISSED";
+                double autoRatio = autoTime.medianSeconds() / c.defaultSeconds();
+                notes.add(String.format(Locale.ROOT, "n=%d Allocator.solve with method AUTO: %.1f ms (method %s, "
+                                + "certificate %.1e), ratio to CVXOPT %.3f: %s", n, 1e3 * autoTime.medianSeconds(),
+                        autoSolution.method().label(), autoSolution.certificate().worst(), autoRatio,
+                        autoRatio <= TARGET_RATIO && autoSolution.certificate().worst() <= CERTIFICATE ? "met"
+                                : "MISSED"));
             }
             rows.append(String.format(Locale.ROOT, "%6d %5d %10.1f %10.1f %10.1f %8.1e %s %8.0f %7s%n", n, free(s, m),
                     1e3 * minvar.medianSeconds(), 1e3 * checked.medianSeconds(), 1e3 * sweep.medianSeconds(), worst,
