@@ -130,7 +130,12 @@ public final class PackRunner {
                 risk, r.holdings(), currentRisk);
         List<PackContent.Chart> charts = r.charts().draw(results);
         if (charts.isEmpty() && !spec.charts().isEmpty()) {
-            notes.add("Charts were asked for but this build draws none.");
+            notes.add("Charts were asked for but none was drawn.");
+        }
+        if (spec.scenarios().isPresent()) {
+            // the one place the engine's stress sweep will be called; until then the pack says so
+            notes.add("The pack file names stress scenarios (" + spec.scenarios().get() + "), but this version of the "
+                    + "pack does not run them: the pack has no stress section.");
         }
         return new Outcome(results, layout(r, results, charts, notes));
     }
