@@ -10,8 +10,10 @@ import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.EstimateCommand;
 import org.isorisk.cli.commands.FrontierCommand;
 import org.isorisk.cli.commands.PackCommand;
+import org.isorisk.cli.commands.RebalanceCommand;
 import org.isorisk.cli.commands.RiskCommand;
 import org.isorisk.cli.commands.SolveCommand;
+import org.isorisk.cli.commands.StressCommand;
 import org.isorisk.engine.explain.Caution;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -37,6 +39,8 @@ public final class IsoriskCommand implements Runnable {
             FrontierCommand.class,
             EstimateCommand.class,
             RiskCommand.class,
+            RebalanceCommand.class,
+            StressCommand.class,
             ChartCommand.class,
             PackCommand.class,
             DemoCommand.class);

@@ -16,8 +16,8 @@ class RootCommandTests {
     void withoutACommandItExitsTwoNamingTheCommands() {
         Run r = Run.of();
         assertEquals(2, r.code(), r.toString());
-        assertEquals("isorisk: error: name a command: check, solve, frontier, estimate, risk, chart, pack, demo (see "
-                + "'isorisk --help')\n", r.err());
+        assertEquals("isorisk: error: name a command: check, solve, frontier, estimate, risk, rebalance, stress, "
+                + "chart, pack, demo (see 'isorisk --help')\n", r.err());
         assertEquals("", r.out());
     }
 
@@ -25,7 +25,7 @@ class RootCommandTests {
     void helpListsEveryCommandTheExitCodesAndTheCaution() {
         Run r = Run.of("--help");
         assertEquals(0, r.code());
-        for (String c : new String[] {"check", "solve", "frontier", "estimate", "risk", "chart", "pack", "demo"}) {
+        for (String c : new String[] {"check", "solve", "frontier", "estimate", "risk", "rebalance", "stress", "chart", "pack", "demo"}) {
             assertTrue(r.out().contains("  " + c + " "), r.out());
         }
         assertTrue(r.out().contains("Exit codes: 0 ok, 1 internal error, 2 bad input or usage, 3 no solution."));
@@ -49,7 +49,7 @@ class RootCommandTests {
 
     @Test
     void everyCommandHasHelp() {
-        for (String c : new String[] {"check", "solve", "frontier", "estimate", "risk", "chart", "pack", "demo"}) {
+        for (String c : new String[] {"check", "solve", "frontier", "estimate", "risk", "rebalance", "stress", "chart", "pack", "demo"}) {
             Run r = Run.of(c, "--help");
             assertEquals(0, r.code(), c);
             assertTrue(r.out().contains("\nUsage: isorisk " + c + " "), r.out());

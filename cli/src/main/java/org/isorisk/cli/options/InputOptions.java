@@ -72,6 +72,17 @@ public final class InputOptions {
         return UniverseLoader.load(new UniverseFiles(expectedReturns, covariance, volatilities, correlation, units, date));
     }
 
+    /**
+     * Reads another covariance file in the layout of {@code --covariance}, matched by name to the assets of the
+     * expected-returns file (used by stress scenarios that replace the covariance).
+     *
+     * @return the covariance in the universe's asset order
+     */
+    public double[][] covarianceFor(Path file) {
+        return UniverseLoader.load(new UniverseFiles(expectedReturns, file, null, null, units, null)).universe()
+                .covariance();
+    }
+
     /** Reads {@code decimal} or {@code percent}. */
     public static final class UnitsConverter implements CommandLine.ITypeConverter<Units> {
         @Override

@@ -23,6 +23,20 @@ public final class AtomicWrite {
     private AtomicWrite() {
     }
 
+    /**
+     * Temporary files and folders being written right now; a shutdown hook deletes whatever is left in it, so that
+     * an interrupted run (Ctrl-C) leaves no partial output beside the target.
+     */
+    private static final java.util.Set<Path> PENDING = java.util.concurrent.ConcurrentHashMap.newKeySet();
+
+    static {
+        Runtime.getRuntime().addShutdownHook(new Thread(() -> {
+            for (Path p : PENDING) {
+                deleteTree(p);
+            }
+        }, "isorisk-cleanup"));
+    }
+
     /** Marker file inside every output folder this class writes; only such folders are replaced. */
     public static final String MARKER = ".isorisk-output";
 
@@ -59,17 +73,22 @@ public final class AtomicWrite {
         Path tmp = null;
         try {
             tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
+            PENDING.add(tmp);
             try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8, StandardOpenOption.CREATE_NEW,
                     StandardOpenOption.WRITE)) {
                 body.write(w);
             }
             move(tmp, abs);
+            PENDING.remove(tmp);
             tmp = null;
         } catch (IOException e) {
             throw InputException.of("the output file cannot be written (" + reason(e) + ")").file(target.toString())
                     .fix("check that the folder is writable, or choose another --out").build();
         } finally {
             deleteQuietly(tmp);
+            if (tmp != null) {
+                PENDING.remove(tmp);
+            }
         }
     }
 
@@ -88,17 +107,22 @@ public final class AtomicWrite {
         Path tmp = null;
         try {
             tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
+            PENDING.add(tmp);
             try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp,
                     StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE))) {
                 body.write(out);
             }
             move(tmp, abs);
+            PENDING.remove(tmp);
             tmp = null;
         } catch (IOException e) {
             throw InputException.of("the output file cannot be written: " + e.getMessage()).file(target.toString())
                     .fix("check that the folder is writable, or choose another --out").build();
         } finally {
             deleteQuietly(tmp);
+            if (tmp != null) {
+                PENDING.remove(tmp);
+            }
         }
     }
 

@@ -43,13 +43,14 @@ import org.yaml.snakeyaml.nodes.Tag;
  */
 public final class PolicyReader {
     private static final Set<String> TOP = Set.of("budget", "bounds", "bounds_file", "groups", "fixed", "turnover",
-            "costs_bps", "constraints", "target_return");
+            "costs_bps", "constraints", "target_return", "trading");
     private static final Set<String> MIN_MAX = Set.of("min", "max");
     private static final Set<String> BOUNDS = Set.of("default", "assets");
     private static final Set<String> GROUP = Set.of("members", "min", "max");
     private static final Set<String> CONSTRAINT = Set.of("name", "coefficients", "relation", "limit");
     private static final Set<String> TURNOVER = Set.of("max");
     private static final Set<String> COSTS = Set.of("default", "assets");
+    private static final Set<String> TRADING = Set.of("max_trade", "min_trade", "no_trade");
 
     private final String file;
     private final Path baseDir;
@@ -207,7 +208,34 @@ public final class PolicyReader {
             }
         }
         Mandate mandate = new Mandate(budget, lo, hi, fixed, groups, constraints);
-        return new Policy(mandate, target, turnover, costs, file);
+        double[] maxTrade = null;
+        double minTrade = 0;
+        Set<Integer> noTrade = new java.util.TreeSet<>();
+        if (top.containsKey("trading")) {
+            Map<String, NodeTuple> t = mapping(top.get("trading").getValueNode(), "trading", TRADING);
+            if (t.containsKey("max_trade")) {
+                maxTrade = maxTrades(t.get("max_trade").getValueNode());
+            }
+            if (t.containsKey("min_trade")) {
+                Node v = t.get("min_trade").getValueNode();
+                minTrade = weight(v, "trading.min_trade");
+                if (minTrade < 0) {
+                    throw error(v, "trading.min_trade", "the minimum trade size cannot be negative", scalar(v))
+                            .fix("give a decimal weight, e.g. 0.0025 for 0.25 % of the fund").build();
+                }
+            }
+            if (t.containsKey("no_trade")) {
+                Node v = t.get("no_trade").getValueNode();
+                if (!(v instanceof SequenceNode list)) {
+                    throw error(v, "trading.no_trade", "expected a list of assets", scalar(v))
+                            .fix("write e.g. no_trade: [Infrastructure, Listed Real Estate]").build();
+                }
+                for (Node a : list.getValue()) {
+                    noTrade.add(asset(a, text(a, "trading.no_trade"), "trading.no_trade"));
+                }
+            }
+        }
+        return new Policy(mandate, target, turnover, costs, file, maxTrade, minTrade, noTrade);
     }
 
     // ---- sections -----------------------------------------------------------------------------------------------
@@ -381,6 +409,34 @@ public final class PolicyReader {
             }
         }
         return out;
+    }
+
+    /** Per-asset largest trade: {@code {default: 0.10, assets: {Infrastructure: 0.02}}}; no limit where absent. */
+    private double[] maxTrades(Node node) {
+        Map<String, NodeTuple> c = mapping(node, "trading.max_trade", COSTS);
+        double[] out = new double[assets.size()];
+        Arrays.fill(out, Double.POSITIVE_INFINITY);
+        if (c.containsKey("default")) {
+            Arrays.fill(out, tradeLimit(c.get("default").getValueNode(), "trading.max_trade.default"));
+        }
+        if (c.containsKey("assets")) {
+            Map<String, NodeTuple> a = mapping(c.get("assets").getValueNode(), "trading.max_trade.assets", null);
+            for (Map.Entry<String, NodeTuple> e : a.entrySet()) {
+                String key = "trading.max_trade.assets." + e.getKey();
+                int i = asset(e.getValue().getKeyNode(), e.getKey(), key);
+                out[i] = tradeLimit(e.getValue().getValueNode(), key);
+            }
+        }
+        return out;
+    }
+
+    private double tradeLimit(Node v, String key) {
+        double x = weight(v, key);
+        if (x < 0) {
+            throw error(v, key, "a trade limit cannot be negative", scalar(v))
+                    .fix("give the largest trade as a decimal weight, e.g. 0.05").build();
+        }
+        return x;
     }
 
     private double bps(Node v, String key) {

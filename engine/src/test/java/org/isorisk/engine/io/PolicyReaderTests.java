@@ -80,7 +80,7 @@ class PolicyReaderTests {
     @Test
     void anUnknownKeyNamesLineKeyAndTheKeysAllowed() {
         assertEquals("p.yaml, line 2, key 'bonds': unknown key 'bonds' (value 'bonds'); fix: use one of bounds, "
-                + "bounds_file, budget, constraints, costs_bps, fixed, groups, target_return, turnover",
+                + "bounds_file, budget, constraints, costs_bps, fixed, groups, target_return, trading, turnover",
                 error("budget: 1.0\nbonds: {default: {min: 0}}\n"));
     }
 

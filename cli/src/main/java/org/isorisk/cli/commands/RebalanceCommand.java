@@ -1,0 +1,176 @@
+package org.isorisk.cli.commands;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeSet;
+import org.isorisk.cli.ExitCode;
+import org.isorisk.cli.options.Decimal;
+import org.isorisk.cli.options.Format;
+import org.isorisk.cli.options.FormatOption;
+import org.isorisk.cli.options.InputOptions;
+import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.PolicyOption;
+import org.isorisk.cli.render.RebalanceView;
+import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.io.LoadedUniverse;
+import org.isorisk.engine.io.PortfolioFile;
+import org.isorisk.engine.io.PortfolioReader;
+import org.isorisk.engine.io.Provenance;
+import org.isorisk.engine.model.Policy;
+import org.isorisk.engine.rebalance.Holdings;
+import org.isorisk.engine.rebalance.RebalanceObjective;
+import org.isorisk.engine.rebalance.RebalanceRequest;
+import org.isorisk.engine.rebalance.RebalanceResult;
+import org.isorisk.engine.rebalance.Rebalancer;
+import org.isorisk.engine.rebalance.TradingLimits;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+
+/** {@code isorisk rebalance}: today's holdings to a proposal under the policy and the trading limits. */
+@Command(name = "rebalance", mixinStandardHelpOptions = true, sortOptions = false,
+        header = "Move today's holdings to a proposal within the policy and the trading limits; the trade list.",
+        description = {"Move today's holdings to a proposal that obeys the policy and the trading limits: the trade "
+                + "list, turnover (two-way: buys plus sells), estimated costs, return and risk before and after, "
+                + "tracking error against today, and the shadow price of the turnover limit and of every other "
+                + "binding limit. Limits today's holdings break are reported first, with the trades that cure them.",
+                "Costs are deducted from the return the target must reach (expected return minus costs >= target)."})
+public final class RebalanceCommand extends BaseCommand {
+
+    @Mixin
+    InputOptions inputs;
+
+    @Mixin
+    PolicyOption policyOption;
+
+    @Option(names = "--holdings", paramLabel = "FILE", required = true,
+            description = "Today's portfolio: CSV asset,weight or asset,market_value; cash is an asset (give the "
+                    + "cash balance as a row).")
+    Path holdings;
+
+    @Option(names = "--fund-size", paramLabel = "AMOUNT", converter = Decimal.class,
+            description = "Fund size in the fund's currency: turns trade weights into amounts (with market values it "
+                    + "must equal their total).")
+    Double fundSize;
+
+    @Option(names = "--objective", paramLabel = "KIND", defaultValue = "target",
+            description = "target (minimum risk for --target-return after costs), same-risk (highest return after "
+                    + "costs at today's volatility) or nearest (the efficient portfolio with the smallest tracking "
+                    + "error against today). Default: ${DEFAULT-VALUE}.")
+    String objective;
+
+    @Option(names = "--target-return", paramLabel = "RETURN", converter = Decimal.class,
+            description = "Expected return after costs the proposal must reach (default: the policy's target_return).")
+    Double target;
+
+    @Option(names = "--max-turnover", paramLabel = "T", converter = Decimal.class,
+            description = "Largest two-way turnover sum |target - current| (overrides the policy's turnover.max).")
+    Double maxTurnover;
+
+    @Option(names = "--max-trade", paramLabel = "ASSET=WEIGHT",
+            description = "Largest trade in one asset (repeatable; overrides the policy's trading.max_trade); ASSET "
+                    + "'all' sets every asset.")
+    Map<String, String> maxTrade = new LinkedHashMap<>();
+
+    @Option(names = "--min-trade", paramLabel = "WEIGHT", converter = Decimal.class,
+            description = "Smallest trade kept: smaller trades are dropped, the asset frozen at today's weight and the "
+                    + "problem solved again (default: the policy's trading.min_trade, else 0: keep every trade).")
+    Double minTrade;
+
+    @Option(names = "--no-trade", paramLabel = "ASSET",
+            description = "An asset that must not be traded (repeatable; added to the policy's trading.no_trade).")
+    List<String> noTrade = new ArrayList<>();
+
+    @Mixin
+    FormatOption formatOption;
+
+    @Mixin
+    OutOption outOption;
+
+    @Override
+    protected Format format() {
+        return formatOption == null ? Format.TABLE : formatOption.format();
+    }
+
+    @Override
+    protected ExitCode execute() {
+        PolicyOption.Loaded pl = policyOption.load(inputs.load(true, "rebalance"));
+        LoadedUniverse u = pl.inputs();
+        List<String> assets = u.assets();
+        List<String> warnings = new ArrayList<>(u.warnings());
+        Policy p = pl.policy().orElseGet(() -> TradingOptions.budgetOnly(assets));
+        PortfolioFile held = PortfolioReader.read(holdings, "holdings", assets, inputs.units());
+        warnings.addAll(held.warnings());
+        double size = fundSize == null ? Double.NaN : fundSize;
+        if (held.marketValue().isPresent()) {
+            double mv = held.marketValue().getAsDouble();
+            if (fundSize != null && Math.abs(mv - fundSize) > Holdings.SUM_TOLERANCE * fundSize) {
+                throw InputException.of(String.format(Locale.ROOT, "the market values add up to %.2f but "
+                                + "--fund-size is %.2f", mv, fundSize)).file(holdings.toString())
+                        .fix("cash is an asset: add the cash balance as a row, or drop --fund-size").build();
+            }
+            size = mv;
+        }
+        RebalanceRequest req = new RebalanceRequest(u.universe(), p.mandate(),
+                Holdings.ofWeights(assets, held.weights(), size), limits(p, assets), objective(p), null);
+        long t0 = System.nanoTime();
+        RebalanceResult r = Rebalancer.rebalance(req);
+        double millis = (System.nanoTime() - t0) / 1e6;
+        Provenance prov = u.provenance().withInput(held.source());
+        emit(new RebalanceView(r, prov, warnings, millis), outOption.out());
+        return ExitCode.OK;
+    }
+
+    private RebalanceObjective objective(Policy p) {
+        switch (objective.strip().toLowerCase(Locale.ROOT)) {
+            case "target" -> {
+                double m;
+                if (target != null) {
+                    m = inputs.units().rate(target);
+                } else if (p.targetReturn().isPresent()) {
+                    m = p.targetReturn().getAsDouble();
+                } else {
+                    throw InputException.of("--objective target needs a return target")
+                            .fix("give --target-return (e.g. 0.05), set target_return in the policy, or use "
+                                    + "--objective same-risk or nearest").build();
+                }
+                return new RebalanceObjective.TargetReturn(m);
+            }
+            case "same-risk" -> {
+                return new RebalanceObjective.SameRisk();
+            }
+            case "nearest" -> {
+                return new RebalanceObjective.Nearest();
+            }
+            default -> throw new CommandLine.ParameterException(spec.commandLine(), "--objective '" + objective
+                    + "' is not known; use target, same-risk or nearest");
+        }
+    }
+
+    private TradingLimits limits(Policy p, List<String> assets) {
+        int n = assets.size();
+        double tau = maxTurnover != null ? inputs.units().rate(maxTurnover)
+                : p.turnoverMax().isPresent() ? p.turnoverMax().getAsDouble() : Double.POSITIVE_INFINITY;
+        double[] costs = p.costsBps() == null ? new double[n] : p.costsBps();
+        double[] trade = p.maxTrade() == null ? TradingOptions.perAsset("--max-trade", java.util.Map.of(), assets,
+                Double.POSITIVE_INFINITY) : p.maxTrade();
+        double[] given = TradingOptions.perAsset("--max-trade", maxTrade, assets, Double.NaN);
+        for (int i = 0; i < n; i++) {
+            if (!Double.isNaN(given[i])) {
+                trade[i] = inputs.units().rate(given[i]);
+            }
+        }
+        Set<Integer> frozen = new TreeSet<>(p.noTrade());
+        for (String a : noTrade) {
+            frozen.add(TradingOptions.asset("--no-trade", a, assets));
+        }
+        double min = minTrade == null ? p.minTrade() : inputs.units().rate(minTrade);
+        return new TradingLimits(tau, trade, costs, min, frozen);
+    }
+}

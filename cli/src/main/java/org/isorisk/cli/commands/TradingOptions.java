@@ -1,0 +1,70 @@
+package org.isorisk.cli.commands;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.io.Names;
+import org.isorisk.engine.io.NumberText;
+import org.isorisk.engine.io.SourceFile;
+import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.Policy;
+
+/** Reading pieces shared by {@code rebalance} and {@code stress}: the budget-only fallback and asset=value options. */
+final class TradingOptions {
+    private TradingOptions() {
+    }
+
+    /** Without {@code --policy}: the budget alone (short positions allowed), no trading limits. */
+    static Policy budgetOnly(List<String> assets) {
+        return new Policy(Mandate.fullyInvested(assets.size()), null, null, null, "(no policy: budget only)");
+    }
+
+    /** A file's fingerprint for the inputs list (scenario files). */
+    static SourceFile source(Path file, String role) {
+        try {
+            return SourceFile.of(role, file, Files.readAllBytes(file));
+        } catch (java.io.IOException e) {
+            throw InputException.of("cannot read the " + role + " file: " + e.getMessage()).file(file.toString())
+                    .fix("check the path").build();
+        }
+    }
+
+    /** Index of an asset named on the command line, or an error listing the names. */
+    static int asset(String option, String name, List<String> assets) {
+        int i = assets.indexOf(name.strip());
+        if (i < 0) {
+            throw Names.hint(InputException.of(option + " names an asset that is not in the expected-returns file")
+                    .asset(name.strip()), name.strip(), assets, "use one of the asset names: "
+                    + String.join(", ", assets)).build();
+        }
+        return i;
+    }
+
+    /** A decimal typed on the command line, with the input files' strict rules. */
+    static double decimal(String option, String asset, String text) {
+        NumberText.Problem p = NumberText.problem(text);
+        if (p != null) {
+            throw InputException.of(option + ": " + p.problem()).asset(asset).value(text).fix(p.fix()).build();
+        }
+        return NumberText.parse(text);
+    }
+
+    /** Per-asset values of a repeatable {@code ASSET=VALUE} option; {@code all} sets every asset first. */
+    static double[] perAsset(String option, Map<String, String> given, List<String> assets, double none) {
+        double[] v = new double[assets.size()];
+        Arrays.fill(v, none);
+        Map<String, String> rest = new LinkedHashMap<>(given);
+        String all = rest.remove("all");
+        if (all != null) {
+            Arrays.fill(v, decimal(option, "all", all));
+        }
+        for (Map.Entry<String, String> e : rest.entrySet()) {
+            v[asset(option, e.getKey(), assets)] = decimal(option, e.getKey(), e.getValue());
+        }
+        return v;
+    }
+}
