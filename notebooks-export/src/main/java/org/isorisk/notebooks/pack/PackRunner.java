@@ -142,6 +142,9 @@ public final class PackRunner {
         if (charts.isEmpty() && !spec.charts().isEmpty()) {
             notes.add("Charts were asked for but none was drawn.");
         }
+        if (spec.charts().contains(PackSpec.ChartChoice.STRESS)) {
+            notes.add("The stress chart is not drawn by the pack yet; the stress results are in the Stress table.");
+        }
 
         List<Table> stress = new ArrayList<>();
         if (!r.scenarios().isEmpty()) {
@@ -179,11 +182,12 @@ public final class PackRunner {
                 .column(Table.Column.percent("change", "Change from base"))
                 .column(Table.Column.percent("base_proposal_risk", "Base proposal's volatility"))
                 .column(Table.Column.percent("base_proposal_return", "Base proposal's return"))
-                .column(Table.Column.percent("turnover", "Turnover to re-optimise"));
+                .column(Table.Column.percent("turnover", "Turnover to re-optimise"))
+                .column(Table.Column.text("note", "Note"));
         for (ScenarioResult s : sr.scenarios()) {
             for (ScenarioPoint p : s.points()) {
                 b.row(s.scenario().name(), p.target(), p.volatility(), p.change(), p.baseRisk(), p.baseReturn(),
-                        p.turnover());
+                        p.turnover(), p.feasible() ? "" : "target out of reach under this scenario");
             }
         }
         return b.build();
