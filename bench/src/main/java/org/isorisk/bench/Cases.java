@@ -16,6 +16,9 @@ public final class Cases {
         Map<String, BenchCase> cases = new LinkedHashMap<>();
         add(cases, new ClosedFormCase());
         add(cases, new CriticalLineCase());
+        add(cases, new QpCase());
+        add(cases, new EstimateCase());
+        add(cases, new StartupCase());
         return cases;
     }
 

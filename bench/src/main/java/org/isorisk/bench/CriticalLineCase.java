@@ -29,6 +29,12 @@ final class CriticalLineCase implements BenchCase {
     static final long SEED = 20_260_101L;
     /** Certificate residual every corner must reach for the timing to count. */
     static final double CERTIFICATE = 1e-9;
+    /** Issue 3's budget for the whole efficient corner frontier at n = 500, seconds. */
+    static final double TARGET_500 = 0.2;
+    /** Issue 3's budget for the whole efficient corner frontier at n = 2000, seconds. */
+    static final double TARGET_2000 = 5.0;
+    /** Issue 3's budget for the peak heap at n = 2000, bytes (2 GB). */
+    static final long TARGET_HEAP_2000 = 2L << 30;
 
     @Override
     public String name() {
@@ -46,8 +52,8 @@ final class CriticalLineCase implements BenchCase {
         SolverSettings settings = SolverSettings.defaults().withThreads(options.threads());
         out.printf(Locale.ROOT, "java %s, %d thread(s); medians after %d warm-up run(s)%n",
                 System.getProperty("java.version"), settings.threads(), options.warmup());
-        out.printf(Locale.ROOT, "%6s %-7s %8s %6s %12s %12s %10s %10s %9s%n", "n", "model", "corners", "free",
-                "frontier ms", "both ms", "minvar ms", "worst", "peak MB");
+        out.printf(Locale.ROOT, "%6s %-7s %8s %6s %12s %12s %10s %10s %9s %7s%n", "n", "model", "corners", "free",
+                "frontier ms", "both ms", "minvar ms", "worst", "peak MB", "target");
         for (int n : options.sizesOr(SIZES)) {
             for (String model : List.of("bench", "market")) {
                 row(n, model, options, settings, out);
@@ -90,9 +96,23 @@ final class CriticalLineCase implements BenchCase {
             Solution s = Allocator.solve(mv);
             return s.variance();
         });
-        out.printf(Locale.ROOT, "%6d %-7s %8d %6d %12.1f %12.1f %10.1f %10.1e %9.0f%n", n, model,
+        long peak = Math.max(frontier.peakHeapBytes(), branches.peakHeapBytes());
+        out.printf(Locale.ROOT, "%6d %-7s %8d %6d %12.1f %12.1f %10.1f %10.1e %9.0f %7s%n", n, model,
                 both.corners().size(), free, 1e3 * frontier.medianSeconds(), 1e3 * branches.medianSeconds(),
-                1e3 * minvar.medianSeconds(), worst,
-                Math.max(frontier.peakHeapBytes(), branches.peakHeapBytes()) / 1048576.0);
+                1e3 * minvar.medianSeconds(), worst, peak / 1048576.0,
+                verdict(n, frontier.medianSeconds(), peak, worst));
+    }
+
+    /** Issue 3's verdict for one size: "met", "MISSED", or "-" for sizes it sets no target for. */
+    static String verdict(int n, double frontierSeconds, long peakHeapBytes, double worst) {
+        boolean met;
+        if (n == 500) {
+            met = frontierSeconds < TARGET_500;
+        } else if (n == 2000) {
+            met = frontierSeconds < TARGET_2000 && peakHeapBytes < TARGET_HEAP_2000;
+        } else {
+            return "-";
+        }
+        return met && worst <= CERTIFICATE ? "met" : "MISSED";
     }
 }

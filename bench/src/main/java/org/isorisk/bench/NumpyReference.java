@@ -45,18 +45,69 @@ public final class NumpyReference {
 
     /** The reference next to the benchmark sources, or null (with the reason printed) when it cannot run. */
     public static NumpyReference find(java.io.PrintStream out) {
+        Path script = script("numpy_reference.py", "numpy", out);
+        String python = python("numpy", "python3-numpy", out);
+        return script == null || python == null ? null : new NumpyReference(script, python);
+    }
+
+    /** A reference script in the bench folder, or null (with the reason printed) when it is missing. */
+    static Path script(String file, String what, java.io.PrintStream out) {
         String dir = System.getProperty("isorisk.bench.dir", "bench");
-        Path script = Path.of(dir, "numpy_reference.py");
-        String python = System.getenv().getOrDefault("ISORISK_BENCH_PYTHON", "/usr/bin/python3");
+        Path script = Path.of(dir, file);
         if (!Files.isRegularFile(script)) {
-            out.println("numpy reference: skipped (" + script + " not found; run through bench/run)");
+            out.println(what + " reference: skipped (" + script + " not found; run through bench/run)");
             return null;
         }
+        return script;
+    }
+
+    /**
+     * The interpreter for the references: Debian's {@code /usr/bin/python3} (the {@code python3} on PATH may be
+     * another one without Debian's packages), or {@code $ISORISK_BENCH_PYTHON}; null (with the reason printed)
+     * when it is missing.
+     */
+    static String python(String what, String debianPackage, java.io.PrintStream out) {
+        String python = System.getenv().getOrDefault("ISORISK_BENCH_PYTHON", "/usr/bin/python3");
         if (!Files.isExecutable(Path.of(python))) {
-            out.println("numpy reference: skipped (" + python + " not found; install Debian's python3-numpy)");
+            out.println(what + " reference: skipped (" + python + " not found; install Debian's " + debianPackage
+                    + ")");
             return null;
         }
-        return new NumpyReference(script, python);
+        return python;
+    }
+
+    /**
+     * Runs a reference script with {@link #OPENBLAS_OVERRIDES} unset, no standard input, and parses the JSON
+     * object on the last line of its output.
+     */
+    static JsonNode runJson(String python, Path script, List<String> args) throws IOException, InterruptedException {
+        List<String> cmd = new ArrayList<>(List.of(python, script.toString()));
+        cmd.addAll(args);
+        ProcessBuilder pb = new ProcessBuilder(cmd);
+        Map<String, String> env = pb.environment();
+        for (String v : OPENBLAS_OVERRIDES) {
+            env.remove(v);
+        }
+        pb.redirectErrorStream(true);
+        Process p = pb.start();
+        p.getOutputStream().close();
+        byte[] output = p.getInputStream().readAllBytes();
+        String text = new String(output, StandardCharsets.UTF_8).trim();
+        if (!p.waitFor(30, TimeUnit.MINUTES) || p.exitValue() != 0) {
+            throw new IOException(script.getFileName() + " failed: " + text);
+        }
+        String last = text.substring(text.lastIndexOf('\n') + 1);
+        return new ObjectMapper().readTree(last);
+    }
+
+    /** Deletes a temporary folder of reference inputs (flat). */
+    static void deleteFlat(Path dir) throws IOException {
+        try (var files = Files.list(dir)) {
+            for (Path f : (Iterable<Path>) files::iterator) {
+                Files.deleteIfExists(f);
+            }
+        }
+        Files.deleteIfExists(dir);
     }
 
     /** The OpenBLAS override variables set in this environment, with their values. */
@@ -69,7 +120,7 @@ public final class NumpyReference {
             }
         }
         return set.isEmpty() ? "no OpenBLAS override variables set"
-                : String.join(", ", set) + " set here; unset for the numpy reference only";
+                : String.join(", ", set) + " set here; unset for the reference process only";
     }
 
     /** Times the reference on Σ and μ. */
@@ -82,33 +133,14 @@ public final class NumpyReference {
             Path m = dir.resolve("mu.f8");
             writeMatrix(s, sigma);
             writeVector(m, mu);
-            List<String> cmd = List.of(python, script.toString(), "--sigma", s.toString(), "--mu", m.toString(),
+            JsonNode j = runJson(python, script, List.of("--sigma", s.toString(), "--mu", m.toString(),
                     "--n", Integer.toString(n), "--reps", Integer.toString(reps), "--warmup", Integer.toString(warmup),
-                    "--points", Integer.toString(points), "--span", Double.toString(span));
-            ProcessBuilder pb = new ProcessBuilder(cmd);
-            Map<String, String> env = pb.environment();
-            for (String v : OPENBLAS_OVERRIDES) {
-                env.remove(v);
-            }
-            pb.redirectErrorStream(true);
-            Process p = pb.start();
-            byte[] output = p.getInputStream().readAllBytes();
-            if (!p.waitFor(10, TimeUnit.MINUTES) || p.exitValue() != 0) {
-                throw new IOException("numpy reference failed: " + new String(output, StandardCharsets.UTF_8).trim());
-            }
-            String text = new String(output, StandardCharsets.UTF_8).trim();
-            String last = text.substring(text.lastIndexOf('\n') + 1);
-            JsonNode j = new ObjectMapper().readTree(last);
+                    "--points", Integer.toString(points), "--span", Double.toString(span)));
             String desc = "numpy " + j.path("numpy").asText() + " (" + j.path("openblas").asText() + "; triangular "
                     + "solves: " + j.path("triangular").asText() + ")";
             return new Timing(j.path("cholesky_s").asDouble(), j.path("total_s").asDouble(), desc);
         } finally {
-            try (var files = Files.list(dir)) {
-                for (Path f : (Iterable<Path>) files::iterator) {
-                    Files.deleteIfExists(f);
-                }
-            }
-            Files.deleteIfExists(dir);
+            deleteFlat(dir);
         }
     }
 

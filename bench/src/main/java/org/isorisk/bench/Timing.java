@@ -20,10 +20,11 @@ public final class Timing {
      *
      * @param medianSeconds median over the measured repetitions
      * @param minSeconds    fastest repetition
+     * @param maxSeconds    slowest repetition
      * @param peakHeapBytes highest heap occupancy seen during the measured repetitions (all heap pools)
      * @param checksum      sum of the work's return values (printed nowhere; keeps the work alive)
      */
-    public record Result(double medianSeconds, double minSeconds, long peakHeapBytes, double checksum) {
+    public record Result(double medianSeconds, double minSeconds, double maxSeconds, long peakHeapBytes, double checksum) {
     }
 
     /**
@@ -54,7 +55,7 @@ public final class Timing {
         long peak = peakHeap();
         Arrays.sort(t);
         double median = reps % 2 == 1 ? t[reps / 2] : 0.5 * (t[reps / 2 - 1] + t[reps / 2]);
-        return new Result(median, t[0], peak, checksum);
+        return new Result(median, t[0], t[reps - 1], peak, checksum);
     }
 
     /** The median of {@code values} (not modified). */

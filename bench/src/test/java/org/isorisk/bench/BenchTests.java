@@ -68,6 +68,69 @@ class BenchTests {
     }
 
     @Test
+    void aTinyRunOfTheQpCasePrintsItsTable() {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        int code = Bench.run(new String[] {"qp", "--sizes", "40", "--reps", "1", "--warmup", "0", "--no-reference"},
+                print(out), print(new ByteArrayOutputStream()));
+        assertEquals(0, code);
+        String text = out.toString(StandardCharsets.UTF_8);
+        assertTrue(text.contains("minvar ms"), text);
+        assertTrue(text.lines().anyMatch(l -> l.trim().startsWith("40 ")), text);
+        assertTrue(!text.contains("WARNING"), text);
+    }
+
+    @Test
+    void aTinyRunOfTheEstimateCasePrintsItsTableWithTheReadEstimateSplit() {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        int code = Bench.run(new String[] {"estimate", "--sizes", "5", "--reps", "1", "--warmup", "0"}, print(out),
+                print(new ByteArrayOutputStream()));
+        assertEquals(0, code);
+        String text = out.toString(StandardCharsets.UTF_8);
+        assertTrue(text.contains("read ms") && text.contains("lw-id ms") && text.contains("read%"), text);
+        // 2,600 dates for 5 assets
+        assertTrue(text.lines().anyMatch(l -> l.trim().startsWith(EstimateCase.ROWS + " ") && l.contains(" 5 ")),
+                text);
+    }
+
+    @Test
+    void theInventedHistoryIsReproducibleAndOnWeekdaysOnly(@TempDir Path dir) throws Exception {
+        Path a = dir.resolve("a.csv");
+        Path b = dir.resolve("b.csv");
+        EstimateCase.writeHistory(a, 30, 3, 7);
+        EstimateCase.writeHistory(b, 30, 3, 7);
+        assertEquals(Files.readString(a), Files.readString(b));
+        var lines = Files.readAllLines(a);
+        assertEquals("date,Asset 1,Asset 2,Asset 3", lines.get(0));
+        assertEquals(31, lines.size());
+        for (String l : lines.subList(1, lines.size())) {
+            java.time.DayOfWeek d = java.time.LocalDate.parse(l.substring(0, 10)).getDayOfWeek();
+            assertTrue(d != java.time.DayOfWeek.SATURDAY && d != java.time.DayOfWeek.SUNDAY, l);
+        }
+    }
+
+    @Test
+    void qpTargetsLieStrictlyBetweenTheMinimumVarianceReturnAndTheHighest() {
+        double[] t = QpCase.targets(new org.isorisk.engine.model.ReturnRange(0.01, 0.09, new double[] {1, 0},
+                new double[] {0, 1}), 0.03);
+        assertEquals(QpCase.TARGETS, t.length);
+        for (int k = 0; k < t.length; k++) {
+            assertTrue(t[k] > 0.03 && t[k] < 0.09, "target " + k + " = " + t[k]);
+            assertTrue(k == 0 || t[k] > t[k - 1]);
+        }
+    }
+
+    @Test
+    void theCriticalLineVerdictAppliesIssueThreesBudgetsAtFiveHundredAndTwoThousandOnly() {
+        assertEquals("met", CriticalLineCase.verdict(500, 0.19, 1L << 30, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(500, 0.21, 1L << 20, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(500, 0.1, 1L << 20, 1e-8));
+        assertEquals("met", CriticalLineCase.verdict(2000, 4.9, (2L << 30) - 1, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(2000, 4.9, 2L << 30, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(2000, 5.1, 1L << 20, 1e-12));
+        assertEquals("-", CriticalLineCase.verdict(1000, 100, 1L << 40, 1));
+    }
+
+    @Test
     void generatedProblemsAreReproducibleAndPositiveDefinite() {
         AssetUniverse a = FactorModel.universe(150, 3);
         AssetUniverse b = FactorModel.universe(150, 3);
