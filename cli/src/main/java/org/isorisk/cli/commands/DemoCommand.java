@@ -34,7 +34,7 @@ public final class DemoCommand extends BaseCommand {
 
     /** The sample files, bundled in the jar from the repository's {@code sample-data/} folder. */
     public static final List<String> SAMPLE_FILES = List.of("expected_returns.csv", "covariance.csv",
-            "holdings.csv", "policy.yaml", "pack.yaml", "README.md");
+            "holdings.csv", "policy.yaml", "scenarios.yaml", "pack.yaml", "README.md");
 
     private static final List<String> REQUIRED = List.of("expected_returns.csv", "covariance.csv", "holdings.csv");
 
@@ -88,6 +88,13 @@ public final class DemoCommand extends BaseCommand {
             }
             for (String name : REQUIRED) {
                 Files.copy(data.resolve(name), temp.resolve(name));
+            }
+            for (String name : List.of("policy.yaml", "scenarios.yaml")) {
+                if (Files.isRegularFile(data.resolve(name))) {
+                    Files.copy(data.resolve(name), temp.resolve(name));
+                } else if (name.equals("scenarios.yaml")) {
+                    extract(name, temp); // the bundled pack file names it
+                }
             }
             extract("pack.yaml", temp);
             return temp;

@@ -18,6 +18,8 @@ import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
 import org.isorisk.engine.io.PortfolioReader;
+import org.isorisk.engine.io.ScenarioFile;
+import org.isorisk.engine.stress.Scenario;
 import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.io.Units;
 import org.isorisk.engine.model.Mandate;
@@ -140,6 +142,16 @@ public final class PackCommand extends BaseCommand {
         }
         List<PackFolder.Input> more = new ArrayList<>();
         more.add(new PackFolder.Input("pack-file", packFile));
+        List<Scenario> scenarios = new ArrayList<>();
+        if (spec.scenarios().isPresent()) {
+            Path file = packFile.toAbsolutePath().getParent().resolve(spec.scenarios().get());
+            java.util.Map<String, List<Integer>> groups = new java.util.LinkedHashMap<>();
+            for (org.isorisk.engine.model.Group g : mandate.groups()) {
+                groups.put(g.name(), g.members());
+            }
+            scenarios.addAll(ScenarioFile.read(file, u.assets(), groups, null));
+            more.add(new PackFolder.Input("scenarios", file));
+        }
         more.addAll(extraInputs);
         for (PackFolder.Input in : more) {
             folder.input(in.role(), in.path());
@@ -162,7 +174,7 @@ public final class PackCommand extends BaseCommand {
         ChartMaker charts = new EngineCharts(ChartContext.of(prov, spec.fund()), ChartSettings.defaults());
         PackRunner.Outcome o = PackRunner.run(new PackRunner.Request(u.universe(), mandate, spec, weights,
                 u.provenance().scenario() == null ? "" : "Inputs: " + u.provenance().scenario() + ".", version, now,
-                parameters, recorded, notes, charts));
+                parameters, recorded, notes, scenarios, charts));
 
         com.fasterxml.jackson.databind.node.ObjectNode params = spec.toJson();
         params.put("policy", policy == null ? null : policy.getFileName().toString());

@@ -71,7 +71,11 @@ class PackCommandTests {
             assertEquals(in.get("sha256").asText(), SourceFile.sha256(read(out.resolve("inputs").resolve(name))),
                     "the copy of " + name + " is the input");
         }
-        assertEquals(List.of("expected-returns", "covariance", "holdings", "pack-file"), roles);
+        assertEquals(List.of("expected-returns", "covariance", "holdings", "pack-file", "scenarios"), roles);
+        // the sample pack file names the invented scenarios: one stress row per scenario and target
+        List<String> stress = Files.readAllLines(out.resolve(PackLayout.table("stress")));
+        assertTrue(stress.get(2).startsWith("scenario,target,volatility,change"), stress.get(2));
+        assertEquals(3 + 5 * 3, stress.size(), "two comment lines, the header, 5 scenarios x 3 targets");
         assertEquals(0.05, m.at("/parameters/proposed").asDouble());
         assertEquals("holdings.csv", m.at("/parameters/holdings").asText());
         assertEquals(inputsBefore, listing(Run.SAMPLE), "inputs are never modified");

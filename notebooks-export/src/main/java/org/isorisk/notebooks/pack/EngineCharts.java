@@ -73,7 +73,7 @@ public final class EngineCharts implements ChartMaker {
                         Charts.riskContributions(r.currentRisk().map(x -> RiskShares.of("Current", x)).orElse(null),
                                 RiskShares.of("Proposed", r.risk()), context, colours, settings), pdf));
                 case STRESS -> {
-                    // drawn with the stress results once the pack runs scenarios
+                    // not drawn yet: the runner's note says so (the stress table is in the notebook)
                 }
                 default -> throw new IllegalStateException(c.name());
             }

@@ -30,6 +30,14 @@ import org.isorisk.engine.risk.Correlations;
 import org.isorisk.engine.risk.RiskAnalysis;
 import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.solve.Allocator;
+import org.isorisk.engine.stress.CorrelationRepair;
+import org.isorisk.engine.stress.Scenario;
+import org.isorisk.engine.stress.ScenarioPoint;
+import org.isorisk.engine.stress.ScenarioResult;
+import org.isorisk.engine.stress.Stress;
+import org.isorisk.engine.stress.StressProgress;
+import org.isorisk.engine.stress.StressRequest;
+import org.isorisk.engine.stress.StressResult;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.Table;
 
@@ -63,12 +71,13 @@ public final class PackRunner {
      * @param parameters  the run's parameters as given on the command line
      * @param inputs      the input files with their SHA-256
      * @param notes       remarks from reading the inputs (warnings), for the run record
+     * @param scenarios   stress scenarios to run at the pack's targets (read from the pack file's scenario file)
      * @param charts      draws the charts
      */
     public record Request(AssetUniverse universe, Mandate mandate, PackSpec spec, Optional<double[]> holdings,
                           String estimator, String toolVersion, OffsetDateTime created,
                           List<PackContent.Parameter> parameters, List<PackContent.InputFile> inputs,
-                          List<String> notes, ChartMaker charts) {
+                          List<String> notes, List<Scenario> scenarios, ChartMaker charts) {
         public Request {
             Objects.requireNonNull(universe, "universe");
             Objects.requireNonNull(mandate, "mandate");
@@ -80,6 +89,7 @@ public final class PackRunner {
             parameters = List.copyOf(parameters);
             inputs = List.copyOf(inputs);
             notes = List.copyOf(notes);
+            scenarios = scenarios == null ? List.of() : List.copyOf(scenarios);
             Objects.requireNonNull(charts, "charts");
         }
     }
@@ -130,9 +140,21 @@ public final class PackRunner {
                 risk, r.holdings(), currentRisk);
         List<PackContent.Chart> charts = r.charts().draw(results);
         if (charts.isEmpty() && !spec.charts().isEmpty()) {
-            notes.add("Charts were asked for but this build draws none.");
+            notes.add("Charts were asked for but none was drawn.");
         }
-        return new Outcome(results, layout(r, results, charts, notes));
+        if (spec.charts().contains(PackSpec.ChartChoice.STRESS)) {
+            notes.add("The stress chart is not drawn by the pack yet; the stress results are in the Stress table.");
+        }
+
+        List<Table> stress = new ArrayList<>();
+        if (!r.scenarios().isEmpty()) {
+            double[] grid = spec.targets().stream().mapToDouble(Double::doubleValue).toArray();
+            StressResult sr = Stress.run(new StressRequest(u, r.mandate(), grid, r.scenarios(),
+                    CorrelationRepair.higham(u.assets()), base.settings()), StressProgress.NONE);
+            stress.add(stressTable(sr));
+            notes.addAll(sr.notes());
+        }
+        return new Outcome(results, layout(r, results, charts, notes, stress));
     }
 
     /**
@@ -151,7 +173,28 @@ public final class PackRunner {
 
     // ------------------------------------------------------------------ layout
 
-    private static PackContent layout(Request r, PackResults res, List<PackContent.Chart> charts, List<String> notes) {
+    /** One row per scenario and target: the scenario's minimum risk, its change, and the base proposal under it. */
+    private static Table stressTable(StressResult sr) {
+        Table.Builder b = Table.builder("stress", "Stress: the targets under each scenario")
+                .column(Table.Column.text("scenario", "Scenario"))
+                .column(Table.Column.percent("target", "Target"))
+                .column(Table.Column.percent("volatility", "Least volatility"))
+                .column(Table.Column.percent("change", "Change from base"))
+                .column(Table.Column.percent("base_proposal_risk", "Base proposal's volatility"))
+                .column(Table.Column.percent("base_proposal_return", "Base proposal's return"))
+                .column(Table.Column.percent("turnover", "Turnover to re-optimise"))
+                .column(Table.Column.text("note", "Note"));
+        for (ScenarioResult s : sr.scenarios()) {
+            for (ScenarioPoint p : s.points()) {
+                b.row(s.scenario().name(), p.target(), p.volatility(), p.change(), p.baseRisk(), p.baseReturn(),
+                        p.turnover(), p.feasible() ? "" : "target out of reach under this scenario");
+            }
+        }
+        return b.build();
+    }
+
+    private static PackContent layout(Request r, PackResults res, List<PackContent.Chart> charts, List<String> notes,
+                                      List<Table> stress) {
         PackSpec spec = r.spec();
         AssetUniverse u = r.universe();
         List<String> assets = u.assets();
@@ -305,7 +348,7 @@ public final class PackRunner {
         PackContent.RunRecord run = new PackContent.RunRecord(r.toolVersion(), r.created(), parameters, r.inputs(),
                 new ArrayList<>(runNotes));
         return new PackContent(heading, assumptions, MandateWords.describe(r.mandate(), assets), portfolios, frontier,
-                wt.build(), rt.build(), binding, cons.build(), charts, trades, List.of(), run);
+                wt.build(), rt.build(), binding, cons.build(), charts, trades, stress, run);
     }
 
     private static Table trades(List<String> assets, double[] current, double[] proposed, PackSpec spec) {

@@ -50,7 +50,7 @@ class PackRunnerTests {
 
     static PackRunner.Outcome run(PackSpec spec, Optional<double[]> holdings) {
         return PackRunner.run(new PackRunner.Request(universe(), Mandate.fullyInvested(3), spec, holdings, "",
-                "0.1.0-test", OffsetDateTime.parse("2025-06-30T12:00:00Z"), List.of(), List.of(), List.of(), r -> List.of()));
+                "0.1.0-test", OffsetDateTime.parse("2025-06-30T12:00:00Z"), List.of(), List.of(), List.of(), List.of(), r -> List.of()));
     }
 
     @Test
@@ -140,7 +140,7 @@ class PackRunnerTests {
         // Cash and Bonds fixed: Equity is pinned by the budget, so no return target can be met as well.
         Mandate pinned = new Mandate(1.0, lo, hi, java.util.Map.of(0, 0.5, 1, 0.5), List.of(), List.of());
         NoSolutionException e = assertThrows(NoSolutionException.class, () -> PackRunner.run(new PackRunner.Request(
-                universe(), pinned, s, Optional.empty(), "", "t", OffsetDateTime.now(), List.of(), List.of(), List.of(),
+                universe(), pinned, s, Optional.empty(), "", "t", OffsetDateTime.now(), List.of(), List.of(), List.of(), List.of(),
                 r -> List.of())));
         assertTrue(e.getMessage().startsWith("target return 5.00 % of the pack file: "), e.getMessage());
     }
