@@ -38,15 +38,15 @@ class DemoCommandTests {
         assertTrue(r.out().endsWith("Caution: " + Caution.TEXT + "\n"), r.out());
         JsonNode nb = Run.json(out.resolve(PackLayout.NOTEBOOK));
         assertEquals("Fernhollow Regional Pension Scheme", nb.at("/metadata/isorisk/fund").asText());
-        // the sample pack file asks for four charts in PNG, SVG and PDF; the notebook embeds each PNG
+        // the sample pack file asks for all five charts in PNG, SVG and PDF; the notebook embeds each PNG
         int embedded = 0;
         for (JsonNode cell : nb.get("cells")) {
             for (JsonNode o : cell.path("outputs")) {
                 embedded += o.path("data").has("image/png") ? 1 : 0;
             }
         }
-        assertEquals(4, embedded);
-        for (String chart : new String[]{"frontier", "weights", "marginal-risk", "risk-contributions"}) {
+        assertEquals(5, embedded);
+        for (String chart : new String[]{"frontier", "weights", "marginal-risk", "risk-contributions", "stress"}) {
             for (String ext : new String[]{"png", "svg", "pdf"}) {
                 assertTrue(Files.size(out.resolve(PackLayout.chart(chart, ext))) > 0, chart + "." + ext);
             }

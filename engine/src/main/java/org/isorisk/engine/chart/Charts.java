@@ -89,7 +89,7 @@ public final class Charts {
      * @throws org.isorisk.engine.error.InputException when the list is empty or two curves share a name
      */
     public static Figure stressCurves(List<StressCurve> curves, ChartContext context, ChartSettings settings) {
-        return StressChart.buildCurves(curves, context, settings);
+        return StressChart.buildCurves(curves, context, settings, false);
     }
 
     /**

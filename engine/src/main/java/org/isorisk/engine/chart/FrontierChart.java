@@ -248,6 +248,7 @@ final class FrontierChart {
             notices.add(String.format(Locale.ROOT, "%d assets are drawn as unlabelled points (names are shown up to "
                     + "%d assets); the tables list them by name.", n, s.assetLabelLimit()));
         }
+        chart.addAnnotation(new DashedPaths()); // before the labels, which must stay on top
         chart.addAnnotation(labels);
         // Names are listed when there are few, so that the notice stays on one line of the footnote.
         Supplier<String> omitted = () -> {
@@ -292,11 +293,10 @@ final class FrontierChart {
         s.setMarker(SeriesMarkers.NONE);
         s.setLineColor(colour);
         s.setLineStyle(stroke);
-        // XChart strokes a polyline segment by segment, restarting the dash pattern each time, so a densely
-        // sampled dashed curve would look solid; a smooth series is one path, dashed continuously (with segments
-        // of a pixel or two the smoothing does not move the curve visibly).
+        // XChart restarts the dash pattern at every segment, so a densely sampled dashed curve would look solid:
+        // such curves are drawn by DashedPaths as one path each.
         if (stroke.getDashArray() != null && x.length > 2) {
-            s.setSmooth(true);
+            DashedPaths.takeOver(s);
         }
         return s;
     }

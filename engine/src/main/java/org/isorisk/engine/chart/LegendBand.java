@@ -36,7 +36,7 @@ final class LegendBand {
         List<Entry> out = new ArrayList<>();
         for (Object o : chart.getSeriesCollection()) {
             AxesChartSeries s = (AxesChartSeries) o;
-            if (s.isShowInLegend() && s.isEnabled()) {
+            if (s.isShowInLegend()) { // disabled series included: DashedPaths draws them
                 out.add(new Entry(s.getLabel(), s));
             }
         }

@@ -133,6 +133,7 @@ final class MarginalRiskChart {
                 c.setLabel("Corner portfolios");
             }
         }
+        chart.addAnnotation(new DashedPaths());
         List<String> notices = new ArrayList<>();
         notices.add(String.format(Locale.ROOT, "Curves: \u2202\u03c3*/\u2202m, the return target's shadow price in "
                 + "volatility units, read on the axis as the volatility added by %s more target (first order).",

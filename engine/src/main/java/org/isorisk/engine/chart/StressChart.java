@@ -52,10 +52,15 @@ final class StressChart {
                         .fix("compute at least two frontier points for every scenario").build();
             }
         }
-        return buildCurves(curves, ctx, s);
+        return buildCurves(curves, ctx, s, true);
     }
 
-    static Figure buildCurves(List<StressCurve> given, ChartContext ctx, ChartSettings s) {
+    /**
+     * @param minimumVariance true when each curve starts at its own minimum-variance portfolio (whole frontiers), which
+     *                        is then marked; false for curves at given targets (a stress run), which start wherever the
+     *                        first reachable target is
+     */
+    static Figure buildCurves(List<StressCurve> given, ChartContext ctx, ChartSettings s, boolean minimumVariance) {
         if (given == null || given.isEmpty()) {
             throw InputException.of("the stress overlay needs at least one frontier (the base)")
                     .fix("give the base frontier and the scenario frontiers").build();
@@ -97,12 +102,18 @@ final class StressChart {
             String name = given.get(j).name();
             boolean saysBase = name.toLowerCase(java.util.Locale.ROOT).contains("base");
             line.setLabel(j == 0 && !saysBase ? name + " (base)" : name);
+            if (!minimumVariance) {
+                continue;
+            }
             XYSeries mv = FrontierChart.points(chart, MIN_PREFIX + given.get(j).name(), new double[] {c[0][0]},
                     new double[] {c[1][0]}, col, new Mark(Mark.Kind.SQUARE, 9, Palette.BLACK, 1f));
             mv.setShowInLegend(false);
         }
-        List<String> notices = List.of("Efficient branches of the mandate frontier under each set of assumptions; "
-                + "squares mark each minimum-variance portfolio.");
+        chart.addAnnotation(new DashedPaths());
+        List<String> notices = List.of(minimumVariance ? "Efficient branches of the mandate frontier under each set of "
+                + "assumptions; squares mark each minimum-variance portfolio." : "The least volatility the mandate "
+                + "allows at each return target under each set of assumptions; targets a scenario cannot reach are left "
+                + "out.");
         return new Figure(Figure.Kind.STRESS, chart, s, ctx, notices, List.of(), true);
     }
 }

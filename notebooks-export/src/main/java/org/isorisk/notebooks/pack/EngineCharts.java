@@ -16,6 +16,11 @@ import org.isorisk.engine.chart.Figure;
 import org.isorisk.engine.chart.FrontierChartData;
 import org.isorisk.engine.chart.PortfolioPoint;
 import org.isorisk.engine.chart.RiskShares;
+import org.isorisk.engine.chart.StressCurve;
+import org.isorisk.engine.stress.ScenarioPoint;
+import org.isorisk.engine.stress.ScenarioResult;
+import org.isorisk.engine.stress.StressResult;
+import org.isorisk.engine.stress.TargetPoint;
 import org.isorisk.notebooks.PackContent;
 
 /**
@@ -72,13 +77,47 @@ public final class EngineCharts implements ChartMaker {
                         "Each asset's share of portfolio volatility (contributions add up to the volatility).",
                         Charts.riskContributions(r.currentRisk().map(x -> RiskShares.of("Current", x)).orElse(null),
                                 RiskShares.of("Proposed", r.risk()), context, colours, settings), pdf));
-                case STRESS -> {
-                    // not drawn yet: the runner's note says so (the stress table is in the notebook)
-                }
+                case STRESS -> r.stressSweep().ifPresent(sr -> out.add(chart("stress", PackContent.ChartKind.STRESS,
+                        "The frontier under stress",
+                        "The least volatility the mandate allows for each return target under today's assumptions and "
+                                + "under each stress scenario (targets out of reach under a scenario are left out).",
+                        Charts.stressCurves(stressCurves(sr), context, settings), pdf)));
                 default -> throw new IllegalStateException(c.name());
             }
         }
         return out;
+    }
+
+    /** The base sweep and each scenario as a curve of (volatility, target), feasible targets only. */
+    static List<StressCurve> stressCurves(StressResult sr) {
+        List<StressCurve> curves = new ArrayList<>();
+        List<Double> bv = new ArrayList<>();
+        List<Double> bm = new ArrayList<>();
+        for (TargetPoint p : sr.base().points()) {
+            if (p.feasible()) {
+                bv.add(p.volatility());
+                bm.add(p.target());
+            }
+        }
+        curves.add(new StressCurve("Today's assumptions", unbox(bv), unbox(bm)));
+        for (ScenarioResult s : sr.scenarios()) {
+            List<Double> v = new ArrayList<>();
+            List<Double> m = new ArrayList<>();
+            for (ScenarioPoint p : s.points()) {
+                if (p.feasible()) {
+                    v.add(p.volatility());
+                    m.add(p.target());
+                }
+            }
+            if (v.size() >= 2) {
+                curves.add(new StressCurve(s.scenario().name(), unbox(v), unbox(m)));
+            }
+        }
+        return curves;
+    }
+
+    private static double[] unbox(List<Double> xs) {
+        return xs.stream().mapToDouble(Double::doubleValue).toArray();
     }
 
     private PackContent.Chart chart(String name, PackContent.ChartKind kind, String title, String caption, Figure f,

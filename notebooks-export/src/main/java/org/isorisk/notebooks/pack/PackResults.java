@@ -7,6 +7,7 @@ import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.risk.RiskDecomposition;
+import org.isorisk.engine.stress.StressResult;
 
 /**
  * The engine results of one pack run, before they are laid out: what the charts are drawn from.
@@ -22,12 +23,14 @@ import org.isorisk.engine.risk.RiskDecomposition;
  * @param risk          the proposal's risk decomposition (marginal risk, contributions, shares)
  * @param holdings      current weights, when given
  * @param currentRisk   the current holdings' risk decomposition, when holdings are given
+ * @param stressSweep   the scenarios run along the frontier's targets for the stress chart, when it is asked for
  */
 public record PackResults(PackSpec spec, AssetUniverse universe, Mandate mandate, Solution minimum,
                           List<Solution> targets, Solution proposal, Optional<Solution> tangency,
                           Frontier frontier, RiskDecomposition risk, Optional<double[]> holdings,
-                          Optional<RiskDecomposition> currentRisk) {
+                          Optional<RiskDecomposition> currentRisk, Optional<StressResult> stressSweep) {
     public PackResults {
+        stressSweep = stressSweep == null ? Optional.empty() : stressSweep;
         targets = List.copyOf(targets);
         holdings = holdings == null ? Optional.empty() : holdings.map(double[]::clone);
         currentRisk = currentRisk == null ? Optional.empty() : currentRisk;

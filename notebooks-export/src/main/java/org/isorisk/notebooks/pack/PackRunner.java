@@ -136,14 +136,19 @@ public final class PackRunner {
         Frontier frontier = frontier(base, spec.frontierPoints());
         RiskDecomposition risk = RiskAnalysis.decompose(u, proposal.weights());
         Optional<RiskDecomposition> currentRisk = r.holdings().map(h -> RiskAnalysis.decompose(u, h));
+        // The stress chart draws each scenario's frontier: the scenarios run at the frontier's own targets.
+        Optional<StressResult> sweep = Optional.empty();
+        if (spec.charts().contains(PackSpec.ChartChoice.STRESS) && !r.scenarios().isEmpty()) {
+            double[] along = frontier.points().stream().mapToDouble(Solution::expectedReturn).sorted().distinct()
+                    .toArray();
+            sweep = Optional.of(Stress.run(new StressRequest(u, r.mandate(), along, r.scenarios(),
+                    CorrelationRepair.higham(u.assets()), base.settings()), StressProgress.NONE));
+        }
         PackResults results = new PackResults(spec, u, r.mandate(), minimum, targets, proposal, tangency, frontier,
-                risk, r.holdings(), currentRisk);
+                risk, r.holdings(), currentRisk, sweep);
         List<PackContent.Chart> charts = r.charts().draw(results);
         if (charts.isEmpty() && !spec.charts().isEmpty()) {
             notes.add("Charts were asked for but none was drawn.");
-        }
-        if (spec.charts().contains(PackSpec.ChartChoice.STRESS)) {
-            notes.add("The stress chart is not drawn by the pack yet; the stress results are in the Stress table.");
         }
 
         List<Table> stress = new ArrayList<>();
