@@ -5,6 +5,7 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.util.List;
 import java.util.Locale;
+import org.isorisk.cli.options.FormatOption;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.error.IsoriskException;
 import org.isorisk.engine.error.NoSolutionException;
@@ -103,7 +104,7 @@ final class ErrorHandler implements CommandLine.IExecutionExceptionHandler, Comm
         List<String> a = List.of(args);
         for (int i = 0; i < a.size(); i++) {
             String s = a.get(i);
-            if (s.equalsIgnoreCase("--format=json") || (s.equals("--format") && i + 1 < a.size()
+            if (s.equalsIgnoreCase(FormatOption.NAME + "=json") || (s.equals(FormatOption.NAME) && i + 1 < a.size()
                     && a.get(i + 1).equalsIgnoreCase("json"))) {
                 return true;
             }

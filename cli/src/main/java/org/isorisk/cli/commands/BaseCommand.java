@@ -2,20 +2,24 @@ package org.isorisk.cli.commands;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.Reporting;
 import org.isorisk.cli.options.Format;
+import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.render.Rendered;
 import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.ResultJson;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Model.OptionSpec;
 import picocli.CommandLine.Spec;
 
 /**
- * What every command shares: the timer behind {@code timing_ms.total}, and {@link #emit} which prints a result in
- * the chosen format to standard output or writes it atomically to {@code --out}.
+ * What every command shares: the timer behind {@code timing_ms.total}, the format of its {@code --format} option
+ * (mixed in with {@code OutputOptions} or {@code FormatOption}), and {@link #emit} which prints a result in that
+ * format to standard output or writes it atomically to {@code --out}.
  */
 public abstract class BaseCommand implements Callable<Integer>, Reporting {
 
@@ -34,8 +38,9 @@ public abstract class BaseCommand implements Callable<Integer>, Reporting {
     protected abstract ExitCode execute() throws Exception;
 
     /** The format the command was asked for; {@link Format#TABLE} for commands without {@code --format}. */
-    protected Format format() {
-        return Format.TABLE;
+    protected final Format format() {
+        OptionSpec option = spec == null ? null : spec.findOption(FormatOption.NAME);
+        return option != null && option.getValue() instanceof Format f ? f : Format.TABLE;
     }
 
     @Override
@@ -70,17 +75,27 @@ public abstract class BaseCommand implements Callable<Integer>, Reporting {
             case TABLE -> r.table();
         };
         if (f != Format.TABLE || file.isPresent()) {
-            for (String w : r.warnings()) {
-                err().println("isorisk: warning: " + w);
-            }
+            warn(r.warnings());
         }
         if (file.isPresent()) {
             AtomicWrite.file(file.get(), w -> w.write(text));
-            err().println("isorisk: wrote " + file.get());
+            wrote(file.get());
         } else {
             out().print(text);
             out().flush();
         }
         err().flush();
+    }
+
+    /** Prints each warning on stderr as {@code isorisk: warning: ...}. */
+    protected void warn(List<String> warnings) {
+        for (String w : warnings) {
+            err().println("isorisk: warning: " + w);
+        }
+    }
+
+    /** Says on stderr that {@code file} was written. */
+    protected void wrote(Path file) {
+        err().println("isorisk: wrote " + file);
     }
 }

@@ -15,8 +15,9 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code isorisk chart KIND}: one committee chart into a file whose extension gives the format (png, svg, pdf).
- * Each kind is a subcommand; they share {@link #write}, which renders completely before the file is moved into
- * place.
+ * Each kind is a subcommand; they take the chart file through {@code ChartFileOptions} and share {@link #write},
+ * which renders completely before the file is moved into place. {@link #checkFormat} and {@link #writeBeside} serve
+ * the {@code --chart FILE} option of frontier and stress.
  */
 @Command(name = "chart", mixinStandardHelpOptions = true,
         header = "Draw a committee chart into a PNG, SVG or PDF file.",
@@ -34,6 +35,23 @@ public final class ChartCommand implements Runnable {
     public void run() {
         throw new CommandLine.ParameterException(spec.commandLine(),
                 "name a chart: " + String.join(", ", spec.subcommands().keySet()));
+    }
+
+    /** Refuses a {@code --chart} file whose extension is not a chart format, before any work; null passes. */
+    static void checkFormat(Path file) {
+        if (file != null) {
+            ChartFormat.fromFileName(file.toString());
+        }
+    }
+
+    /**
+     * Writes {@code figure} to the {@code --chart} file beside the command's own output, with the default settings,
+     * and says so on stderr (stdout stays the result alone).
+     */
+    static void writeBeside(BaseCommand cmd, Figure figure, Path file) {
+        writeFile(figure, file, ChartSettings.defaults());
+        cmd.wrote(file);
+        cmd.err().flush();
     }
 
     /** Writes {@code figure} to {@code file} atomically in the format of its extension; returns the format. */

@@ -6,10 +6,8 @@ import java.util.List;
 import java.util.Optional;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.Decimal;
-import org.isorisk.cli.options.Format;
-import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.render.CheckView;
 import org.isorisk.cli.render.RepairView;
 import org.isorisk.engine.error.InputException;
@@ -40,10 +38,7 @@ public final class CheckCommand extends BaseCommand {
     InputOptions inputs;
 
     @Mixin
-    FormatOption formatOption;
-
-    @Mixin
-    OutOption outOption;
+    OutputOptions output;
 
     @Option(names = "--repair",
             description = "Repair the --covariance or --correlation matrix if it is not positive definite: nearest "
@@ -62,11 +57,6 @@ public final class CheckCommand extends BaseCommand {
     Double minEigenvalue;
 
     @Override
-    protected Format format() {
-        return formatOption == null ? Format.TABLE : formatOption.format();
-    }
-
-    @Override
     protected ExitCode execute() throws Exception {
         if (repair) {
             return repair();
@@ -75,8 +65,8 @@ public final class CheckCommand extends BaseCommand {
             throw InputException.of("--out-dir and --min-eigenvalue go with --repair")
                     .fix("add --repair, or drop them").build();
         }
-        LoadedUniverse u = inputs.load(false, "check");
-        emit(new CheckView(u, AssumptionSummary.of(u.universe(), u.spectrum())), outOption.out());
+        LoadedUniverse u = inputs.load(false);
+        emit(new CheckView(u, AssumptionSummary.of(u.universe(), u.spectrum())), output.out());
         return ExitCode.OK;
     }
 

@@ -7,7 +7,6 @@ import java.util.Optional;
 import java.util.function.Function;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.Decimal;
-import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.render.EstimateView;
 import org.isorisk.engine.error.InputException;
@@ -124,11 +123,6 @@ public final class EstimateCommand extends BaseCommand {
 
     @Mixin
     FormatOption formatOption;
-
-    @Override
-    protected Format format() {
-        return formatOption == null ? Format.TABLE : formatOption.format();
-    }
 
     @Override
     protected ExitCode execute() throws Exception {

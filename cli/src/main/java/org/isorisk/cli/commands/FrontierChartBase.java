@@ -2,12 +2,12 @@ package org.isorisk.cli.commands;
 
 import java.nio.file.Path;
 import org.isorisk.cli.ExitCode;
+import org.isorisk.cli.options.ChartFileOptions;
 import org.isorisk.cli.options.Decimal;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.engine.chart.AssetColours;
 import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartFormat;
 import org.isorisk.engine.chart.ChartSettings;
 import org.isorisk.engine.chart.Figure;
 import org.isorisk.engine.frontier.Grid;
@@ -53,18 +53,8 @@ abstract class FrontierChartBase extends BaseCommand {
             description = "The current portfolio (CSV asset,weight or asset,market_value) to highlight.")
     Path current;
 
-    @Option(names = "--out", paramLabel = "FILE", required = true,
-            description = "The chart file; its extension gives the format: .png, .svg or .pdf.")
-    Path out;
-
-    @Option(names = "--png-scale", paramLabel = "X", defaultValue = "2",
-            description = "Resolution of a PNG as a multiple of the chart's 800 x 600 size (default: ${DEFAULT-VALUE}, "
-                    + "for print; 1 for screens).")
-    double pngScale;
-
-    @Option(names = "--fund", paramLabel = "NAME",
-            description = "The fund's name for the footnote (default: the inputs' '# scenario:' line).")
-    String fund;
+    @Mixin
+    ChartFileOptions chartFile;
 
     /** What the subclass draws, from everything loaded. */
     protected abstract Figure draw(Loaded in, ChartContext ctx, AssetColours colours, ChartSettings settings);
@@ -76,26 +66,24 @@ abstract class FrontierChartBase extends BaseCommand {
 
     @Override
     protected ExitCode execute() {
-        ChartFormat.fromFileName(out.toString()); // refuse an unknown format before any work
+        chartFile.format(); // refuse an unknown format before any work
         if (points < 2) {
             throw org.isorisk.engine.error.InputException.of("--points must be at least 2 for a frontier chart")
                     .value(points).fix("give --points 2 or more (default 60)").build();
         }
         Loaded in = load();
-        ChartSettings s = ChartSettings.defaults().withPngScale(pngScale);
-        Figure fig = draw(in, ChartContext.of(in.provenance(), fund), AssetColours.of(in.universe().assets()), s);
-        ChartCommand.write(this, fig, out, s);
+        ChartSettings s = chartFile.settings();
+        Figure fig = draw(in, chartFile.context(in.provenance()), AssetColours.of(in.universe().assets()), s);
+        ChartCommand.write(this, fig, chartFile.file(), s);
         return ExitCode.OK;
     }
 
     private Loaded load() {
-        PolicyOption.Loaded loaded = policyOption.load(inputs.load(true, spec.qualifiedName().replace("isorisk ", "")));
+        PolicyOption.Loaded loaded = policyOption.load(inputs);
         LoadedUniverse u = loaded.inputs();
-        for (String w : u.warnings()) {
-            err().println("isorisk: warning: " + w);
-        }
+        warn(u.warnings());
         Provenance prov = u.provenance();
-        Mandate mandate = loaded.mandate(java.util.Map.of());
+        Mandate mandate = loaded.mandate();
         // the same frontier as 'isorisk frontier': exact corners, sampled QP or closed form, as the mandate allows
         Frontier f = FrontierCommand.run(loaded, Grid.points(points), false).frontier();
         Solution proposal = target == null ? null : Allocator.solve(AllocationRequest.of(u.universe(), mandate,
@@ -103,9 +91,7 @@ abstract class FrontierChartBase extends BaseCommand {
         RiskDecomposition now = null;
         if (current != null) {
             PortfolioFile c = PortfolioReader.read(current, "current", u.assets(), inputs.units());
-            for (String w : c.warnings()) {
-                err().println("isorisk: warning: " + w);
-            }
+            warn(c.warnings());
             prov = prov.withInput(c.source());
             now = RiskAnalysis.decompose(u.universe(), c.weights());
         }

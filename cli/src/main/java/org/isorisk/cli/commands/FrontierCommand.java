@@ -3,17 +3,13 @@ package org.isorisk.cli.commands;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Map;
 import org.isorisk.cli.ExitCode;
-import org.isorisk.cli.options.Format;
-import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.FrontierView;
 import org.isorisk.engine.chart.AssetColours;
 import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartFormat;
 import org.isorisk.engine.chart.ChartSettings;
 import org.isorisk.engine.chart.Charts;
 import org.isorisk.engine.chart.Figure;
@@ -74,15 +70,7 @@ public final class FrontierCommand extends BaseCommand {
     Path chart;
 
     @Mixin
-    FormatOption formatOption;
-
-    @Mixin
-    OutOption outOption;
-
-    @Override
-    protected Format format() {
-        return formatOption == null ? Format.TABLE : formatOption.format();
-    }
+    OutputOptions output;
 
     @Override
     protected ExitCode execute() {
@@ -94,10 +82,8 @@ public final class FrontierCommand extends BaseCommand {
             throw new CommandLine.ParameterException(spec.commandLine(),
                     "--points must be 0 or more (0 lists the corner portfolios only), not " + points);
         }
-        if (chart != null) {
-            ChartFormat.fromFileName(chart.toString()); // refuse an unknown chart format before any work
-        }
-        PolicyOption.Loaded loaded = policyOption.load(inputs.load(true, "frontier"));
+        ChartCommand.checkFormat(chart);
+        PolicyOption.Loaded loaded = policyOption.load(inputs);
         Grid grid = points != null ? Grid.points(points) : targets != null ? explicit(targets, inputs.units())
                 : Grid.points(DEFAULT_POINTS);
         FrontierView view = run(loaded, grid, inefficient);
@@ -107,11 +93,9 @@ public final class FrontierCommand extends BaseCommand {
             fig = Charts.frontier(FrontierChartData.of(u.universe(), view.frontier()),
                     ChartContext.of(u.provenance(), null), AssetColours.of(u.assets()), ChartSettings.defaults());
         }
-        emit(view, outOption.out());
+        emit(view, output.out());
         if (fig != null) {
-            ChartCommand.writeFile(fig, chart, ChartSettings.defaults());
-            err().println("isorisk: wrote " + chart);
-            err().flush();
+            ChartCommand.writeBeside(this, fig, chart);
         }
         return ExitCode.OK;
     }
@@ -127,7 +111,7 @@ public final class FrontierCommand extends BaseCommand {
      */
     static FrontierView run(PolicyOption.Loaded loaded, Grid grid, boolean inefficient) {
         AssetUniverse u = loaded.inputs().universe();
-        Mandate m = loaded.mandate(Map.of());
+        Mandate m = loaded.mandate();
         List<String> notes = new ArrayList<>();
         long t0 = System.nanoTime();
         Frontier f;

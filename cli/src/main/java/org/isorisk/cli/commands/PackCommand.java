@@ -80,7 +80,7 @@ public final class PackCommand extends BaseCommand {
 
     @Override
     protected ExitCode execute() {
-        LoadedUniverse u = inputs.load(true, "pack");
+        LoadedUniverse u = inputs.load(true);
         Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of());
         out().print(made.summary());
         out().flush();
@@ -110,7 +110,7 @@ public final class PackCommand extends BaseCommand {
         LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
         Path policy = policyOption.path().orElse(null);
         List<String> notes = new ArrayList<>(u.warnings());
-        Mandate mandate = loaded.mandate(java.util.Map.of());
+        Mandate mandate = loaded.mandate();
         Optional<Policy> pol = loaded.policy();
         if (pol.isPresent() && pol.get().turnoverMax().isPresent() && holdings != null) {
             notes.add("The policy limits turnover to " + Explain.percent(pol.get().turnoverMax().getAsDouble())
@@ -145,11 +145,7 @@ public final class PackCommand extends BaseCommand {
         List<Scenario> scenarios = new ArrayList<>();
         if (spec.scenarios().isPresent()) {
             Path file = packFile.toAbsolutePath().getParent().resolve(spec.scenarios().get());
-            java.util.Map<String, List<Integer>> groups = new java.util.LinkedHashMap<>();
-            for (org.isorisk.engine.model.Group g : mandate.groups()) {
-                groups.put(g.name(), g.members());
-            }
-            scenarios.addAll(ScenarioFile.read(file, u.assets(), groups, null));
+            scenarios.addAll(ScenarioFile.read(file, u.assets(), loaded.groups(), null));
             more.add(new PackFolder.Input("scenarios", file));
         }
         more.addAll(extraInputs);

@@ -10,10 +10,8 @@ import java.util.Set;
 import java.util.TreeSet;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.Decimal;
-import org.isorisk.cli.options.Format;
-import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.RebalanceView;
 import org.isorisk.engine.error.InputException;
@@ -88,23 +86,15 @@ public final class RebalanceCommand extends BaseCommand {
     List<String> noTrade = new ArrayList<>();
 
     @Mixin
-    FormatOption formatOption;
-
-    @Mixin
-    OutOption outOption;
-
-    @Override
-    protected Format format() {
-        return formatOption == null ? Format.TABLE : formatOption.format();
-    }
+    OutputOptions output;
 
     @Override
     protected ExitCode execute() {
-        PolicyOption.Loaded pl = policyOption.load(inputs.load(true, "rebalance"));
+        PolicyOption.Loaded pl = policyOption.load(inputs);
         LoadedUniverse u = pl.inputs();
         List<String> assets = u.assets();
         List<String> warnings = new ArrayList<>(u.warnings());
-        Policy p = pl.policy().orElseGet(() -> TradingOptions.budgetOnly(assets));
+        Policy p = pl.policyOrBudget();
         PortfolioFile held = PortfolioReader.read(holdings, "holdings", assets, inputs.units());
         warnings.addAll(held.warnings());
         double size = fundSize == null ? Double.NaN : fundSize;
@@ -123,7 +113,7 @@ public final class RebalanceCommand extends BaseCommand {
         RebalanceResult r = Rebalancer.rebalance(req);
         double millis = (System.nanoTime() - t0) / 1e6;
         Provenance prov = u.provenance().withInput(held.source());
-        emit(new RebalanceView(r, prov, warnings, millis), outOption.out());
+        emit(new RebalanceView(r, prov, warnings, millis), output.out());
         return ExitCode.OK;
     }
 

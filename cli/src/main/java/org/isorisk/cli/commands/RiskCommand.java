@@ -4,10 +4,8 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.isorisk.cli.ExitCode;
-import org.isorisk.cli.options.Format;
-import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.render.RiskView;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
@@ -41,19 +39,11 @@ public final class RiskCommand extends BaseCommand {
     Path benchmark;
 
     @Mixin
-    FormatOption formatOption;
-
-    @Mixin
-    OutOption outOption;
-
-    @Override
-    protected Format format() {
-        return formatOption == null ? Format.TABLE : formatOption.format();
-    }
+    OutputOptions output;
 
     @Override
     protected ExitCode execute() {
-        LoadedUniverse u = inputs.load(false, "risk");
+        LoadedUniverse u = inputs.load(false);
         List<String> warnings = new ArrayList<>(u.warnings());
         PortfolioFile p = PortfolioReader.read(weights, "weights", u.assets(), inputs.units());
         warnings.addAll(p.warnings());
@@ -71,7 +61,7 @@ public final class RiskCommand extends BaseCommand {
             benchLabel = b.source().name();
         }
         emit(new RiskView("the portfolio in " + p.source().name(), risk, p.marketValue(), u.hasExpectedReturns(),
-                benchLabel, benchRisk, te, prov, warnings), outOption.out());
+                benchLabel, benchRisk, te, prov, warnings), output.out());
         return ExitCode.OK;
     }
 }

@@ -2,10 +2,9 @@ package org.isorisk.cli.commands;
 
 import java.nio.file.Path;
 import org.isorisk.cli.ExitCode;
+import org.isorisk.cli.options.ChartFileOptions;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.engine.chart.AssetColours;
-import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartFormat;
 import org.isorisk.engine.chart.ChartSettings;
 import org.isorisk.engine.chart.Charts;
 import org.isorisk.engine.chart.Figure;
@@ -38,23 +37,13 @@ public final class RiskContributionsChartCommand extends BaseCommand {
             description = "The current portfolio in the same layout, drawn beside the proposal.")
     Path current;
 
-    @Option(names = "--out", paramLabel = "FILE", required = true,
-            description = "The chart file; its extension gives the format: .png, .svg or .pdf.")
-    Path out;
-
-    @Option(names = "--png-scale", paramLabel = "X", defaultValue = "2",
-            description = "Resolution of a PNG as a multiple of the chart's 800 x 600 size (default: ${DEFAULT-VALUE}, "
-                    + "for print; 1 for screens).")
-    double pngScale;
-
-    @Option(names = "--fund", paramLabel = "NAME",
-            description = "The fund's name for the footnote (default: the inputs' '# scenario:' line).")
-    String fund;
+    @Mixin
+    ChartFileOptions chartFile;
 
     @Override
     protected ExitCode execute() {
-        ChartFormat.fromFileName(out.toString()); // refuse an unknown format before any work
-        LoadedUniverse u = inputs.load(false, "chart risk-contributions");
+        chartFile.format(); // refuse an unknown format before any work
+        LoadedUniverse u = inputs.load(false);
         PortfolioFile p = PortfolioReader.read(weights, "weights", u.assets(), inputs.units());
         Provenance prov = u.provenance().withInput(p.source());
         RiskShares proposed = RiskShares.of("Proposed", RiskAnalysis.decompose(u.universe(), p.weights()));
@@ -64,13 +53,10 @@ public final class RiskContributionsChartCommand extends BaseCommand {
             prov = prov.withInput(c.source());
             now = RiskShares.of("Current", RiskAnalysis.decompose(u.universe(), c.weights()));
         }
-        for (String w : u.warnings()) {
-            err().println("isorisk: warning: " + w);
-        }
-        ChartSettings s = ChartSettings.defaults().withPngScale(pngScale);
-        Figure fig = Charts.riskContributions(now, proposed, ChartContext.of(prov, fund), AssetColours.of(u.assets()),
-                s);
-        ChartCommand.write(this, fig, out, s);
+        warn(u.warnings());
+        ChartSettings s = chartFile.settings();
+        Figure fig = Charts.riskContributions(now, proposed, chartFile.context(prov), AssetColours.of(u.assets()), s);
+        ChartCommand.write(this, fig, chartFile.file(), s);
         return ExitCode.OK;
     }
 }

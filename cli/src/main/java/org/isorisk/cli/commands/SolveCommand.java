@@ -7,10 +7,8 @@ import java.util.Map;
 import java.util.OptionalDouble;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.Decimal;
-import org.isorisk.cli.options.Format;
-import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.SolveView;
 import org.isorisk.engine.error.InputException;
@@ -69,15 +67,7 @@ public final class SolveCommand extends BaseCommand {
     Method method = Method.AUTO;
 
     @Mixin
-    FormatOption formatOption;
-
-    @Mixin
-    OutOption outOption;
-
-    @Override
-    protected Format format() {
-        return formatOption == null ? Format.TABLE : formatOption.format();
-    }
+    OutputOptions output;
 
     @Override
     protected ExitCode execute() {
@@ -85,7 +75,7 @@ public final class SolveCommand extends BaseCommand {
             throw new CommandLine.ParameterException(spec.commandLine(),
                     "give --target-return (minimum variance for that return) or --risk-free (tangency), not both");
         }
-        PolicyOption.Loaded loaded = policyOption.load(inputs.load(true, "solve"));
+        PolicyOption.Loaded loaded = policyOption.load(inputs);
         LoadedUniverse u = loaded.inputs();
         List<String> warnings = new ArrayList<>(u.warnings());
         List<String> notes = new ArrayList<>();
@@ -113,7 +103,7 @@ public final class SolveCommand extends BaseCommand {
         }
         Map<String, Double> fixed = new LinkedHashMap<>();
         Mandate mandate = loaded.mandate(fixes(u, fixed));
-        emit(run(u, mandate, objective, method, fixed, loaded.name(), notes, warnings), outOption.out());
+        emit(run(u, mandate, objective, method, fixed, loaded.name(), notes, warnings), output.out());
         return ExitCode.OK;
     }
 

@@ -9,14 +9,11 @@ import java.util.Map;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.ProgressLine;
 import org.isorisk.cli.options.Decimal;
-import org.isorisk.cli.options.Format;
-import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.cli.options.OutOption;
+import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.StressView;
 import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartFormat;
 import org.isorisk.engine.chart.ChartSettings;
 import org.isorisk.engine.chart.Charts;
 import org.isorisk.engine.chart.Figure;
@@ -26,7 +23,6 @@ import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.ScenarioFile;
-import org.isorisk.engine.model.Group;
 import org.isorisk.engine.model.Policy;
 import org.isorisk.engine.model.SolverSettings;
 import org.isorisk.engine.stress.CorrelationRepair;
@@ -92,34 +88,21 @@ public final class StressCommand extends BaseCommand {
     Path chart;
 
     @Mixin
-    FormatOption formatOption;
-
-    @Mixin
-    OutOption outOption;
-
-    @Override
-    protected Format format() {
-        return formatOption == null ? Format.TABLE : formatOption.format();
-    }
+    OutputOptions output;
 
     @Override
     protected ExitCode execute() {
-        if (chart != null) {
-            ChartFormat.fromFileName(chart.toString()); // refuse an unknown chart format before any work
-        }
+        ChartCommand.checkFormat(chart);
         double[] grid = Grid.parse(targets).targets(Double.NaN, Double.NaN);
         for (int i = 0; i < grid.length; i++) {
             grid[i] = inputs.units().rate(grid[i]);
         }
-        PolicyOption.Loaded pl = policyOption.load(inputs.load(true, "stress"));
+        PolicyOption.Loaded pl = policyOption.load(inputs);
         LoadedUniverse u = pl.inputs();
         List<String> assets = u.assets();
         List<String> warnings = new ArrayList<>(u.warnings());
-        Policy p = pl.policy().orElseGet(() -> TradingOptions.budgetOnly(assets));
-        Map<String, List<Integer>> groups = new LinkedHashMap<>();
-        for (Group g : p.mandate().groups()) {
-            groups.put(g.name(), g.members());
-        }
+        Policy p = pl.policyOrBudget();
+        Map<String, List<Integer>> groups = pl.groups();
         List<Scenario> list = new ArrayList<>();
         Provenance prov = u.provenance();
         if (scenarios != null) {
@@ -168,10 +151,9 @@ public final class StressCommand extends BaseCommand {
                         + org.isorisk.engine.explain.Explain.percent(r.base().maxTarget())).build();
             }
             Figure fig = Charts.stressCurves(curves, ChartContext.of(prov, null), ChartSettings.defaults());
-            ChartCommand.writeFile(fig, chart, ChartSettings.defaults());
-            err().println("isorisk: wrote " + chart);
+            ChartCommand.writeBeside(this, fig, chart);
         }
-        emit(new StressView(r, prov, warnings, millis), outOption.out());
+        emit(new StressView(r, prov, warnings, millis), output.out());
         return ExitCode.OK;
     }
 

@@ -10,17 +10,10 @@ import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.Names;
 import org.isorisk.engine.io.NumberText;
 import org.isorisk.engine.io.SourceFile;
-import org.isorisk.engine.model.Mandate;
-import org.isorisk.engine.model.Policy;
 
-/** Reading pieces shared by {@code rebalance} and {@code stress}: the budget-only fallback and asset=value options. */
+/** Reading pieces shared by {@code rebalance} and {@code stress}: input fingerprints and asset=value options. */
 final class TradingOptions {
     private TradingOptions() {
-    }
-
-    /** Without {@code --policy}: the budget alone (short positions allowed), no trading limits. */
-    static Policy budgetOnly(List<String> assets) {
-        return new Policy(Mandate.fullyInvested(assets.size()), null, null, null, "(no policy: budget only)");
     }
 
     /** A file's fingerprint for the inputs list (scenario files). */

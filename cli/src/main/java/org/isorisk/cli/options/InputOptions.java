@@ -10,10 +10,16 @@ import org.isorisk.engine.io.UniverseFiles;
 import org.isorisk.engine.io.UniverseLoader;
 import org.isorisk.engine.io.Units;
 import picocli.CommandLine;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
 
 /** The assumption files and their units, shared by every command that reads them. */
 public final class InputOptions {
+
+    /** The command these options are mixed into, whose name the "needs the expected returns" message gives. */
+    @Spec(Spec.Target.MIXEE)
+    CommandSpec command;
 
     @Option(names = "--expected-returns", paramLabel = "FILE",
             description = "Expected returns: CSV with columns asset,expected_return (annualised; more columns allowed).")
@@ -60,12 +66,12 @@ public final class InputOptions {
     /**
      * Reads and validates the files.
      *
-     * @param needReturns true when the command cannot work without expected returns
-     * @param command     the command's name, for the message when they are missing
+     * @param needReturns true when the command cannot work without expected returns (the message when they are
+     *                    missing names the command, e.g. {@code 'isorisk chart frontier'})
      */
-    public LoadedUniverse load(boolean needReturns, String command) {
+    public LoadedUniverse load(boolean needReturns) {
         if (needReturns && expectedReturns == null) {
-            throw InputException.of("'isorisk " + command + "' needs the expected returns")
+            throw InputException.of("'" + command.qualifiedName() + "' needs the expected returns")
                     .fix("give --expected-returns FILE (columns asset,expected_return)").build();
         }
         LocalDate date = asOf == null ? null : Provenance.parseDate(asOf, null, 0);

@@ -4,12 +4,14 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PolicyReader;
 import org.isorisk.engine.io.SourceFile;
+import org.isorisk.engine.model.Group;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Policy;
 import picocli.CommandLine.Option;
@@ -17,8 +19,8 @@ import picocli.CommandLine.Option;
 /**
  * {@code --policy FILE}: the mandate policy (YAML, see the README's "Policy file"), read by
  * {@link PolicyReader} against the assets of the loaded universe. The one way every command takes a policy: mix it
- * in with {@code @Mixin PolicyOption policyOption;} and call {@link #load(LoadedUniverse)} after the inputs are
- * loaded.
+ * in with {@code @Mixin PolicyOption policyOption;} and call {@link #load(InputOptions)}, or
+ * {@link #load(LoadedUniverse)} when the inputs are loaded otherwise (the demo).
  */
 public final class PolicyOption {
 
@@ -37,6 +39,17 @@ public final class PolicyOption {
     /** The policy file, if one was given. */
     public Optional<Path> path() {
         return Optional.ofNullable(policy);
+    }
+
+    /**
+     * Loads the inputs, which must include the expected returns (every command that solves under a mandate needs
+     * them), then reads the policy against them: the one loading step of solve, frontier, rebalance, stress and the
+     * frontier-based charts.
+     *
+     * @see InputOptions#load(boolean)
+     */
+    public Loaded load(InputOptions inputs) {
+        return load(inputs.load(true));
     }
 
     /**
@@ -77,6 +90,29 @@ public final class PolicyOption {
         /** True when a policy was given. */
         public boolean present() {
             return policy.isPresent();
+        }
+
+        /**
+         * The policy, or without {@code --policy} the budget alone (short positions allowed) and no trading limits
+         * or return target.
+         */
+        public Policy policyOrBudget() {
+            return policy.orElseGet(() -> new Policy(Mandate.fullyInvested(inputs.assets().size()), null, null, null,
+                    "(no policy: budget only)"));
+        }
+
+        /** The mandate to solve under: the policy's, or without a policy the budget alone. */
+        public Mandate mandate() {
+            return mandate(Map.of());
+        }
+
+        /** The mandate's groups by name, their members as asset indices, in the policy's order. */
+        public Map<String, List<Integer>> groups() {
+            Map<String, List<Integer>> groups = new LinkedHashMap<>();
+            for (Group g : mandate().groups()) {
+                groups.put(g.name(), g.members());
+            }
+            return groups;
         }
 
         /**
