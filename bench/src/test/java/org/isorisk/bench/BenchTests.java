@@ -10,8 +10,6 @@ import java.nio.ByteOrder;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import org.isorisk.engine.linalg.Cholesky;
-import org.isorisk.engine.model.AssetUniverse;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -128,14 +126,6 @@ class BenchTests {
         assertEquals("MISSED", CriticalLineCase.verdict(2000, 4.9, 2L << 30, 1e-12));
         assertEquals("MISSED", CriticalLineCase.verdict(2000, 5.1, 1L << 20, 1e-12));
         assertEquals("-", CriticalLineCase.verdict(1000, 100, 1L << 40, 1));
-    }
-
-    @Test
-    void generatedProblemsAreReproducibleAndPositiveDefinite() {
-        AssetUniverse a = FactorModel.universe(150, 3);
-        AssetUniverse b = FactorModel.universe(150, 3);
-        assertEquals(a, b);
-        assertTrue(Cholesky.factor(a.covariance()) != null);
     }
 
     @Test
