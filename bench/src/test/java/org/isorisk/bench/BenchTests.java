@@ -129,6 +129,18 @@ class BenchTests {
     }
 
     @Test
+    void theStressTargetsRunEvenlyFromTenToNinetyFivePercentOfTheReturnRange() {
+        double[] t = RebalanceStressCase.targets(new double[] {0.01, 0.11});
+        assertEquals(RebalanceStressCase.TARGETS, t.length);
+        assertEquals(0.02, t[0], 1e-15); // 0.01 + 10 % of the 0.10 range
+        assertEquals(0.105, t[t.length - 1], 1e-15); // 0.11 - 5 % of the range
+        for (int k = 1; k < t.length; k++) {
+            assertEquals(0.085 / (t.length - 1), t[k] - t[k - 1], 1e-15);
+        }
+        assertEquals(5, RebalanceStressCase.scenarios(10).size());
+    }
+
+    @Test
     void matricesAreWrittenAsLittleEndianRowMajorDoubles(@TempDir Path dir) throws Exception {
         double[][] m = {{1.5, -2.0}, {3.25, 1e-300}};
         Path f = dir.resolve("m.f8");
