@@ -7,50 +7,30 @@ the same with the return target mu'w = m for each target, solved one by one (CVX
 CVXOPT at its best: dense P = 2 Sigma, the bound rows as a sparse G, its BLAS/LAPACK through OpenBLAS; only the
 solve call is timed. Prints one JSON object on stdout.
 """
-import argparse
-import json
 import platform
-import sys
-import time
 
 import numpy as np
 import cvxopt
 from cvxopt import matrix, spmatrix, solvers
+
+from reference_common import openblas_info, print_json, problem_parser, read_problem, read_vector, timed
 
 # CVXOPT's defaults stop early (up to ~3e-6 in the weights); "tight" is what a full-accuracy answer needs,
 # as in engine/src/test/scripts/check_qp_against_cvxopt.py.
 TIGHT = {"abstol": 1e-13, "reltol": 1e-13, "feastol": 1e-13}
 
 
-def openblas_info():
-    try:
-        from threadpoolctl import threadpool_info
-    except ImportError:
-        return "threadpoolctl not installed: OpenBLAS core not known"
-    for lib in threadpool_info():
-        if lib.get("internal_api") == "openblas":
-            return "OpenBLAS %s, core %s, %s threads" % (lib.get("version"), lib.get("architecture"),
-                                                        lib.get("num_threads"))
-    return "no OpenBLAS found by threadpoolctl"
-
-
 def main():
-    p = argparse.ArgumentParser(description=__doc__)
-    p.add_argument("--sigma", required=True)
-    p.add_argument("--mu", required=True)
-    p.add_argument("--targets", required=True)
-    p.add_argument("--weights", required=True, help="isorisk's minimum-variance weights, to compare")
-    p.add_argument("--n", type=int, required=True)
+    p = problem_parser(__doc__, [("targets", None), ("weights", "isorisk's minimum-variance weights, to compare")])
     p.add_argument("--upper", type=float, required=True)
     p.add_argument("--reps", type=int, default=5)
     p.add_argument("--warmup", type=int, default=1)
     p.add_argument("--sweep-reps", type=int, default=1)
     a = p.parse_args()
     n = a.n
-    sigma = np.fromfile(a.sigma, dtype="<f8").reshape(n, n)
-    mu = np.fromfile(a.mu, dtype="<f8")
-    targets = np.fromfile(a.targets, dtype="<f8")
-    isorisk_w = np.fromfile(a.weights, dtype="<f8")
+    sigma, mu = read_problem(a)
+    targets = read_vector(a.targets)
+    isorisk_w = read_vector(a.weights)
 
     big_p = matrix(2.0 * sigma)
     q = matrix(0.0, (n, 1))
@@ -65,20 +45,9 @@ def main():
         solvers.options.update(opts)
         solvers.options["show_progress"] = False
 
-    def timed(opts, work, reps, warmup):
+    def options_timed(opts, work, reps, warmup):
         options(opts)
-        for _ in range(warmup):
-            work()
-        wall, cpu, last = [], [], None
-        for _ in range(reps):
-            c = time.process_time()
-            s = time.perf_counter()
-            last = work()
-            wall.append(time.perf_counter() - s)
-            cpu.append(time.process_time() - c)
-        wall.sort()
-        cpu.sort()
-        return wall[len(wall) // 2], cpu[len(cpu) // 2], last
+        return timed(work, reps, warmup)
 
     def minvar():
         return solvers.qp(big_p, q, g, h, a1, b1)
@@ -91,9 +60,9 @@ def main():
                 worst = sol["status"]
         return worst
 
-    default_s, default_cpu, d = timed({}, minvar, a.reps, a.warmup)
-    tight_s, _, t = timed(TIGHT, minvar, a.reps, a.warmup)
-    sweep_s, _, sweep_status = timed({}, sweep, a.sweep_reps, 0)
+    default_s, default_cpu, d = options_timed({}, minvar, a.reps, a.warmup)
+    tight_s, _, t = options_timed(TIGHT, minvar, a.reps, a.warmup)
+    sweep_s, _, sweep_status = options_timed({}, sweep, a.sweep_reps, 0)
     out = {
         "minvar_default_s": default_s,
         "minvar_default_cpu_s": default_cpu,
@@ -111,8 +80,7 @@ def main():
         "python": platform.python_version(),
         "openblas": openblas_info(),
     }
-    json.dump(out, sys.stdout)
-    sys.stdout.write("\n")
+    print_json(out)
 
 
 if __name__ == "__main__":

@@ -6,13 +6,11 @@ factor Σ once (Cholesky), solve Σx = 1 and Σx = μ through the factor, then t
 portfolio and a frontier of target returns with weights, multipliers and variance (one Σw product per
 portfolio). Prints one JSON object on stdout.
 """
-import argparse
-import json
 import platform
-import sys
-import time
 
 import numpy as np
+
+from reference_common import openblas_info, print_json, problem_parser, read_problem, timed
 
 
 def triangular_solver():
@@ -44,31 +42,15 @@ def triangular_solver():
         return solve, "numpy blocked substitution"
 
 
-def openblas_info():
-    try:
-        from threadpoolctl import threadpool_info
-    except ImportError:
-        return "threadpoolctl not installed: OpenBLAS core not known"
-    for lib in threadpool_info():
-        if lib.get("internal_api") == "openblas":
-            return "OpenBLAS %s, core %s, %s threads" % (lib.get("version"), lib.get("architecture"),
-                                                        lib.get("num_threads"))
-    return "no OpenBLAS found by threadpoolctl"
-
-
 def main():
-    p = argparse.ArgumentParser(description=__doc__)
-    p.add_argument("--sigma", required=True)
-    p.add_argument("--mu", required=True)
-    p.add_argument("--n", type=int, required=True)
+    p = problem_parser(__doc__)
     p.add_argument("--reps", type=int, default=7)
     p.add_argument("--warmup", type=int, default=2)
     p.add_argument("--points", type=int, default=25)
     p.add_argument("--span", type=float, default=0.05)
     a = p.parse_args()
     n = a.n
-    sigma = np.fromfile(a.sigma, dtype="<f8").reshape(n, n)
-    mu = np.fromfile(a.mu, dtype="<f8")
+    sigma, mu = read_problem(a)
     solve, solver_name = triangular_solver()
     ones = np.ones(n)
 
@@ -93,27 +75,15 @@ def main():
             checksum += variance + nu_return + nu_budget
         return checksum
 
-    def timed(work):
-        for _ in range(a.warmup):
-            work()
-        t = []
-        for _ in range(a.reps):
-            s = time.perf_counter()
-            work()
-            t.append(time.perf_counter() - s)
-        t.sort()
-        return t[len(t) // 2]
-
     out = {
-        "cholesky_s": timed(cholesky_only),
-        "total_s": timed(closed_form),
+        "cholesky_s": timed(cholesky_only, a.reps, a.warmup)[0],
+        "total_s": timed(closed_form, a.reps, a.warmup)[0],
         "numpy": np.__version__,
         "python": platform.python_version(),
         "triangular": solver_name,
         "openblas": openblas_info(),
     }
-    json.dump(out, sys.stdout)
-    sys.stdout.write("\n")
+    print_json(out)
 
 
 if __name__ == "__main__":

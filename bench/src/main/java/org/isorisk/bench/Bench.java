@@ -38,7 +38,7 @@ public final class Bench {
         }
         if (names.equals(List.of("list"))) {
             for (BenchCase c : cases.values()) {
-                out.printf("%-14s %s%n", c.name(), c.description());
+                out.printf("%-16s %s%n", c.name(), c.description());
             }
             return 0;
         }

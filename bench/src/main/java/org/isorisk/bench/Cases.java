@@ -18,6 +18,7 @@ public final class Cases {
         add(cases, new CriticalLineCase());
         add(cases, new QpCase());
         add(cases, new EstimateCase());
+        add(cases, new RebalanceStressCase());
         add(cases, new StartupCase());
         return cases;
     }

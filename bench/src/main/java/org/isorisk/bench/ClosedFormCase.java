@@ -14,6 +14,7 @@ import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.model.SolverSettings;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.engine.solve.Factored;
+import org.isorisk.engine.synthetic.FactorModels;
 
 /**
  * The closed-form job through the public API: factor Σ once ({@link Factored}), the global minimum-variance
@@ -35,7 +36,7 @@ final class ClosedFormCase implements BenchCase {
     @Override
     public String description() {
         return "global minimum variance + " + POINTS + "-point frontier, closed form (factor once; weights, "
-                + "multipliers and certificate per point), dense " + FactorModel.FACTORS + "-factor problems";
+                + "multipliers and certificate per point), dense " + FactorModels.SIGNED_FACTORS + "-factor problems";
     }
 
     @Override
@@ -52,7 +53,7 @@ final class ClosedFormCase implements BenchCase {
         String referenceDescription = null;
         StringBuilder rows = new StringBuilder();
         for (int n : options.sizesOr(SIZES)) {
-            AssetUniverse u = FactorModel.universe(n, SEED + n);
+            AssetUniverse u = FactorModels.signedUniverse(n, SEED + n);
             Mandate mandate = Mandate.fullyInvested(n);
             AllocationRequest req = new AllocationRequest(u, mandate, Objective.minimumVariance(),
                     Method.CLOSED_FORM, settings);

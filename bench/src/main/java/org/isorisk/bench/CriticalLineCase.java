@@ -18,9 +18,9 @@ import org.isorisk.engine.solve.Allocator;
 import org.isorisk.engine.synthetic.FactorModels;
 
 /**
- * The critical line method through the public API on dense factor-model problems of two kinds (the bench
- * module's {@link FactorModel} and the engine's market-factor {@link FactorModels}), fully invested, long-only,
- * every asset at most {@code max(5 %, 3/n)}: the whole efficient corner-portfolio frontier (every corner a
+ * The critical line method through the public API on dense factor-model problems of two kinds (the signed
+ * recipe {@link FactorModels#signedUniverse} and the market recipe {@link FactorModels#universe}), fully
+ * invested, long-only, every asset at most {@code max(5 %, 3/n)}: the whole efficient corner-portfolio frontier (every corner a
  * certified solution with its multipliers), the same with the inefficient branch, and one bounded
  * minimum-variance solve (the walk's end).
  */
@@ -44,7 +44,8 @@ final class CriticalLineCase implements BenchCase {
     @Override
     public String description() {
         return "whole corner-portfolio frontier by the critical line method (weights, multipliers, certificate per "
-                + "corner), long-only with maxima max(5 %, 3/n), dense " + FactorModel.FACTORS + "-factor problems";
+                + "corner), long-only with maxima max(5 %, 3/n), dense " + FactorModels.SIGNED_FACTORS
+                + "-factor problems";
     }
 
     @Override
@@ -69,7 +70,7 @@ final class CriticalLineCase implements BenchCase {
 
     private static void row(int n, String model, Options options, SolverSettings settings, PrintStream out)
             throws Exception {
-        AssetUniverse u = model.equals("bench") ? FactorModel.universe(n, SEED + n)
+        AssetUniverse u = model.equals("bench") ? FactorModels.signedUniverse(n, SEED + n)
                 : FactorModels.universe(n, FactorModels.DEFAULT_SEED);
         Mandate m = FactorModels.longOnlyCapped(n);
         int reps = options.repsOr(n >= 1000 ? 5 : 11);

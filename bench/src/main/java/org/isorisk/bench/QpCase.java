@@ -40,7 +40,8 @@ final class QpCase implements BenchCase {
     @Override
     public String description() {
         return "active-set QP: one bounded minimum-variance solve and a " + TARGETS + "-target warm sweep, long-only "
-                + "with maxima max(5 %, 3/n), dense " + FactorModel.FACTORS + "-factor problems, against CVXOPT";
+                + "with maxima max(5 %, 3/n), dense " + FactorModels.SIGNED_FACTORS
+                + "-factor problems, against CVXOPT";
     }
 
     @Override
@@ -59,7 +60,7 @@ final class QpCase implements BenchCase {
         List<String> notes = new ArrayList<>();
         String referenceDescription = null;
         for (int n : options.sizesOr(SIZES)) {
-            AssetUniverse u = FactorModel.universe(n, SEED + n);
+            AssetUniverse u = FactorModels.signedUniverse(n, SEED + n);
             Mandate m = FactorModels.longOnlyCapped(n);
             int reps = options.repsOr(n >= 1000 ? 5 : 11);
             SolverSession session = Allocator.session(u, m, settings);

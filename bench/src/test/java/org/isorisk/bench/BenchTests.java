@@ -10,8 +10,6 @@ import java.nio.ByteOrder;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import org.isorisk.engine.linalg.Cholesky;
-import org.isorisk.engine.model.AssetUniverse;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -131,11 +129,15 @@ class BenchTests {
     }
 
     @Test
-    void generatedProblemsAreReproducibleAndPositiveDefinite() {
-        AssetUniverse a = FactorModel.universe(150, 3);
-        AssetUniverse b = FactorModel.universe(150, 3);
-        assertEquals(a, b);
-        assertTrue(Cholesky.factor(a.covariance()) != null);
+    void theStressTargetsRunEvenlyFromTenToNinetyFivePercentOfTheReturnRange() {
+        double[] t = RebalanceStressCase.targets(new double[] {0.01, 0.11});
+        assertEquals(RebalanceStressCase.TARGETS, t.length);
+        assertEquals(0.02, t[0], 1e-15); // 0.01 + 10 % of the 0.10 range
+        assertEquals(0.105, t[t.length - 1], 1e-15); // 0.11 - 5 % of the range
+        for (int k = 1; k < t.length; k++) {
+            assertEquals(0.085 / (t.length - 1), t[k] - t[k - 1], 1e-15);
+        }
+        assertEquals(5, RebalanceStressCase.scenarios(10).size());
     }
 
     @Test

@@ -5,15 +5,23 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
+import java.util.SplittableRandom;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Mandate;
 
 /**
  * Synthetic asset universes with a dense factor-model covariance {@code Σ = B F B' + D} and expected returns
- * that reward factor exposure, {@code μ = r₀ + B π + ε}: k factors (a market factor every asset loads on, and
- * style factors), diagonal factor variances F and idiosyncratic variances D. The same {@code (n, seed)} always
- * gives the same universe ({@link Random} is specified to the bit), so tests and benchmarks can quote results.
- * Typical scale: volatilities 8–35 %, expected returns 1–12 %, annualised decimals.
+ * that reward factor exposure, {@code μ = r₀ + B π + ε}, from one of two recipes that differ on purpose:
+ * <ul>
+ *   <li>{@link #universe} (the market recipe): k factors, a market factor every asset loads on positively plus
+ *       style factors, diagonal factor variances F and idiosyncratic variances D. Long-only frontiers hold few
+ *       assets. Typical scale: volatilities 8–35 %, expected returns 1–12 %.</li>
+ *   <li>{@link #signedUniverse} (the signed recipe): {@link #SIGNED_FACTORS} factors with loadings of either
+ *       sign and no common market factor, so near the minimum-variance end nearly every asset is held and the
+ *       free set grows to n. Typical scale: volatilities 15–75 %, expected returns −4 to 7 %.</li>
+ * </ul>
+ * All figures are annualised decimals, invented for tests and speed measurement only. The same
+ * {@code (n, seed)} always gives the same universe, so tests and benchmarks can quote results.
  */
 public final class FactorModels {
     private FactorModels() {
@@ -22,8 +30,12 @@ public final class FactorModels {
     /** Seed used by the benchmarks and the cross-check tests unless they say otherwise. */
     public static final long DEFAULT_SEED = 20_240_601L;
 
+    /** Number of factors of the signed recipe ({@link #signedUniverse}). */
+    public static final int SIGNED_FACTORS = 10;
+
     /**
-     * A universe of {@code n} assets named {@code A0001 ...}.
+     * A universe of {@code n} assets named {@code A0001 ...} from the market recipe ({@link Random} is specified
+     * to the bit).
      *
      * @param n    number of assets, at least 2
      * @param seed random seed
@@ -78,6 +90,68 @@ public final class FactorModels {
             names.add(String.format(java.util.Locale.ROOT, "A%04d", i + 1));
         }
         return new AssetUniverse(names, mu, sigma);
+    }
+
+    /**
+     * A universe of {@code n} assets named {@code Asset 1 ...} from the signed recipe: {@link #SIGNED_FACTORS}
+     * factors with loadings N(0, 1) scaled per factor (factor volatilities 16 % for the first, falling evenly to
+     * 4 % for the last), idiosyncratic volatilities uniform in 10–30 %, expected returns 2 % plus the exposures
+     * times factor premia (a Sharpe ratio of 0.25 per factor) plus an asset-specific N(0, 1 %). The normals come
+     * from the Box–Muller transform on {@link SplittableRandom}; the benchmark figures were measured on exactly
+     * these numbers, so the arithmetic and its order are pinned by a test and must not change.
+     *
+     * @param n    number of assets, at least 2
+     * @param seed random seed
+     */
+    public static AssetUniverse signedUniverse(int n, long seed) {
+        if (n < 2) {
+            throw new IllegalArgumentException("need at least 2 assets");
+        }
+        SplittableRandom r = new SplittableRandom(seed);
+        int k = SIGNED_FACTORS;
+        double[] factorVol = new double[k];
+        for (int f = 0; f < k; f++) {
+            factorVol[f] = 0.16 - 0.12 * f / Math.max(1, k - 1);
+        }
+        double[][] b = new double[n][k];
+        for (double[] row : b) {
+            for (int f = 0; f < k; f++) {
+                row[f] = gaussian(r) * factorVol[f];
+            }
+        }
+        double[][] sigma = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j <= i; j++) {
+                double s = 0;
+                for (int f = 0; f < k; f++) {
+                    s += b[i][f] * b[j][f];
+                }
+                sigma[i][j] = s;
+                sigma[j][i] = s;
+            }
+            double idio = 0.10 + 0.20 * r.nextDouble();
+            sigma[i][i] += idio * idio;
+        }
+        double[] mu = new double[n];
+        for (int i = 0; i < n; i++) {
+            double premium = 0;
+            for (int f = 0; f < k; f++) {
+                premium += b[i][f] * 0.25 * factorVol[f]; // exposure × factor premium (a Sharpe ratio of 0.25)
+            }
+            mu[i] = 0.02 + premium + 0.01 * gaussian(r);
+        }
+        List<String> names = new ArrayList<>(n);
+        for (int i = 0; i < n; i++) {
+            names.add("Asset " + (i + 1));
+        }
+        return new AssetUniverse(names, mu, sigma);
+    }
+
+    /** A standard normal by the Box–Muller transform (the cosine branch only; one normal per two uniforms). */
+    private static double gaussian(SplittableRandom r) {
+        double u = 1 - r.nextDouble();
+        double v = r.nextDouble();
+        return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
     }
 
     /** The benchmark mandate: fully invested, long-only, each asset at most {@code max(5 %, 3/n)}. */
