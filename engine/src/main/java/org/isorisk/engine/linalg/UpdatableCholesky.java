@@ -4,7 +4,8 @@ package org.isorisk.engine.linalg;
  * A Cholesky factor {@code S = L L'} of a symmetric positive definite matrix that grows and shrinks one
  * row/column at a time: appending a row/column costs one triangular solve ({@code O(m²)}), deleting one at any
  * position costs a sweep of Givens rotations ({@code O(m²)}), so a sequence of changes never refactors from
- * scratch ({@code O(m³)}). Used for the free-set block of the covariance in the critical line method.
+ * scratch ({@code O(m³)}); a deletion can hand over its rotations so that a caller carries its own half solves
+ * along. Used for the free-set block of the covariance in the critical line method.
  * Rows are stored as separate arrays of a fixed capacity, so deletions move references, not numbers.
  */
 public final class UpdatableCholesky {
@@ -65,108 +66,91 @@ public final class UpdatableCholesky {
     }
 
     /**
-     * Deletes row/column {@code pos}; the rows after it move up by one.
+     * Borders the matrix with a new last row/column whose off-diagonal part of the factor is already known:
+     * {@code l = L⁻¹s} for the new column s (as kept by a caller that maintains {@code L⁻¹} times other columns).
+     * Only the pivot {@code sqrt(diagonal − l'l)} is computed here, in {@code O(m)}.
+     *
+     * @param l        {@code L⁻¹s}, first {@code size()} entries (not modified)
+     * @param diagonal the new diagonal entry {@code S[new][new]}
+     * @param relTol   as for {@link #append}
+     * @return the squared pivot relative to the diagonal, or a value ≤ relTol when refused (nothing changes)
+     */
+    public double appendRow(double[] l, double diagonal, double relTol) {
+        if (size == capacity) {
+            throw new IllegalStateException("factor is full");
+        }
+        int m = size;
+        double ss = dot(l, l, m);
+        double d = diagonal - ss;
+        double rel = diagonal > 0 ? d / diagonal : -1;
+        if (!(rel > relTol)) {
+            return rel;
+        }
+        double[] r = rows[size] == null ? new double[capacity] : rows[size];
+        System.arraycopy(l, 0, r, 0, m);
+        r[m] = Math.sqrt(d);
+        rows[size] = r;
+        size++;
+        return rel;
+    }
+
+    /**
+     * Deletes row/column {@code pos} as {@link #remove(int)}, recording the Givens rotations that restore the
+     * triangle so that a caller can carry other quantities along ({@link #rotate}): with {@code L_del} the old
+     * factor without row pos and Q the product of the rotations, {@code L_del Q = [L̃ 0]}; hence for any
+     * {@code y = L⁻¹b} the new {@code L̃⁻¹b_del} is the first {@code size()} entries of {@code Q'y}.
      *
      * @param pos zero-based position, {@code 0 ≤ pos < size()}
+     * @param cos receives the rotations' cosines at indices pos..size()−1 (after the call)
+     * @param sin receives their sines at the same indices
+     * @param oldRow receives the deleted row of the factor (entries 0..pos), zeros after it up to the old size
      */
-    public void remove(int pos) {
+    public void remove(int pos, double[] cos, double[] sin, double[] oldRow) {
         if (pos < 0 || pos >= size) {
             throw new IndexOutOfBoundsException(pos);
         }
         double[] gone = rows[pos];
+        System.arraycopy(gone, 0, oldRow, 0, pos + 1);
+        java.util.Arrays.fill(oldRow, pos + 1, size, 0.0);
         System.arraycopy(rows, pos + 1, rows, pos, size - pos - 1);
         rows[size - 1] = gone;
         int m = size - 1;
-        // Rows pos..m-1 now reach one column past their diagonal; rotate columns (j, j+1) to clear it.
-        for (int j = pos; j < m; j++) {
-            double[] lj = rows[j];
-            double a = lj[j];
-            double b = lj[j + 1];
-            double r = Math.hypot(a, b);
-            double c = a / r;
-            double s = b / r;
-            lj[j] = r;
-            lj[j + 1] = 0;
-            for (int i = j + 1; i < m; i++) {
-                double[] li = rows[i];
+        // Row by row (each row read once): row i takes the rotations of the rows above it, then sets its own.
+        for (int i = pos; i < m; i++) {
+            double[] li = rows[i];
+            for (int j = pos; j < i; j++) {
                 double x = li[j];
                 double y = li[j + 1];
-                li[j] = c * x + s * y;
-                li[j + 1] = -s * x + c * y;
+                li[j] = cos[j] * x + sin[j] * y;
+                li[j + 1] = -sin[j] * x + cos[j] * y;
             }
+            double a = li[i];
+            double b = li[i + 1];
+            double r = Math.hypot(a, b);
+            cos[i] = a / r;
+            sin[i] = b / r;
+            li[i] = r;
+            li[i + 1] = 0;
         }
         size = m;
     }
 
     /**
-     * After {@link #append}, the old matrix's solution of {@code S z = s} for the appended column s, by one
-     * back-substitution: the new row of L is {@code L⁻¹s} already.
-     *
-     * @param z receives z in its first {@code size() − 1} entries
+     * Applies the rotations recorded by {@link #remove(int, double[], double[], double[])} at indices
+     * {@code pos..end−1} to a vector indexed like the factor's columns: {@code v ← Q'v}. The first {@code end}
+     * entries of the result are the new system's; entry {@code end} is left over.
      */
-    public void borderSolution(double[] z) {
-        int m = size - 1;
-        double[] last = rows[m];
-        System.arraycopy(last, 0, z, 0, m);
-        for (int i = m - 1; i >= 0; i--) {
-            double[] li = rows[i];
-            double zi = z[i] / li[i];
-            z[i] = zi;
-            for (int k = 0; k < i; k++) {
-                z[k] -= li[k] * zi;
-            }
+    public static void rotate(double[] v, int pos, int end, double[] cos, double[] sin) {
+        for (int j = pos; j < end; j++) {
+            double x = v[j];
+            double y = v[j + 1];
+            v[j] = cos[j] * x + sin[j] * y;
+            v[j + 1] = -sin[j] * x + cos[j] * y;
         }
     }
 
-    /**
-     * Column {@code p} of {@code S⁻¹}: solves {@code S v = e_p} (the forward pass starts at row p).
-     *
-     * @param v receives the column in its first {@code size()} entries
-     */
-    public void unitSolution(int p, double[] v) {
-        int m = size;
-        java.util.Arrays.fill(v, 0, m, 0.0);
-        v[p] = 1 / rows[p][p];
-        for (int i = p + 1; i < m; i++) {
-            double[] li = rows[i];
-            double s = 0;
-            for (int k = p; k < i; k++) {
-                s -= li[k] * v[k];
-            }
-            v[i] = s / li[i];
-        }
-        for (int i = m - 1; i >= 0; i--) {
-            double[] li = rows[i];
-            double vi = v[i] / li[i];
-            v[i] = vi;
-            for (int k = 0; k < i; k++) {
-                v[k] -= li[k] * vi;
-            }
-        }
-    }
-
-    /** Solves {@code S x = b} in place for the first {@code size()} entries of {@code x}. */
-    public void solveInPlace(double[] x) {
-        int m = size;
-        for (int i = 0; i < m; i++) {
-            double[] li = rows[i];
-            x[i] = (x[i] - dot(li, x, i)) / li[i];
-        }
-        for (int i = m - 1; i >= 0; i--) {
-            double[] li = rows[i];
-            double xi = x[i] / li[i];
-            x[i] = xi;
-            for (int k = 0; k < i; k++) {
-                x[k] -= li[k] * xi;
-            }
-        }
-    }
-
-    /**
-     * Solves {@code S x = b} in place for three right-hand sides at once, reading the factor twice in all (not
-     * twice per right-hand side); the three sums of each row are independent, so they also pipeline.
-     */
-    public void solveInPlace(double[] a, double[] b, double[] c) {
+    /** Solves {@code L y = b} in place (the forward half) for three right-hand sides at once. */
+    public void forwardInPlace(double[] a, double[] b, double[] c) {
         int m = size;
         for (int i = 0; i < m; i++) {
             double[] li = rows[i];
@@ -184,20 +168,82 @@ public final class UpdatableCholesky {
             b[i] = sb / d;
             c[i] = sc / d;
         }
-        for (int i = m - 1; i >= 0; i--) {
+    }
+
+    /**
+     * Solves {@code L'x = y} in place (the backward half) for two right-hand sides at once, reading each row of
+     * the factor once: four rows at a time, each entry of the right-hand sides is loaded and stored once per four
+     * rows rather than once per row.
+     */
+    public void backwardInPlace(double[] a, double[] b) {
+        int i = size - 1;
+        for (; i >= 3; i -= 4) {
+            double[] l3 = rows[i];
+            double[] l2 = rows[i - 1];
+            double[] l1 = rows[i - 2];
+            double[] l0 = rows[i - 3];
+            // The 4×4 triangle at the diagonal.
+            double a3 = a[i] / l3[i];
+            double b3 = b[i] / l3[i];
+            double a2 = (a[i - 1] - l3[i - 1] * a3) / l2[i - 1];
+            double b2 = (b[i - 1] - l3[i - 1] * b3) / l2[i - 1];
+            double a1 = (a[i - 2] - l3[i - 2] * a3 - l2[i - 2] * a2) / l1[i - 2];
+            double b1 = (b[i - 2] - l3[i - 2] * b3 - l2[i - 2] * b2) / l1[i - 2];
+            double a0 = (a[i - 3] - l3[i - 3] * a3 - l2[i - 3] * a2 - l1[i - 3] * a1) / l0[i - 3];
+            double b0 = (b[i - 3] - l3[i - 3] * b3 - l2[i - 3] * b2 - l1[i - 3] * b1) / l0[i - 3];
+            a[i] = a3;
+            b[i] = b3;
+            a[i - 1] = a2;
+            b[i - 1] = b2;
+            a[i - 2] = a1;
+            b[i - 2] = b1;
+            a[i - 3] = a0;
+            b[i - 3] = b0;
+            int end = i - 3;
+            for (int k = 0; k < end; k++) {
+                double v3 = l3[k];
+                double v2 = l2[k];
+                double v1 = l1[k];
+                double v0 = l0[k];
+                a[k] -= (v3 * a3 + v2 * a2) + (v1 * a1 + v0 * a0);
+                b[k] -= (v3 * b3 + v2 * b2) + (v1 * b1 + v0 * b0);
+            }
+        }
+        for (; i >= 0; i--) {
             double[] li = rows[i];
-            double d = li[i];
-            double xa = a[i] / d;
-            double xb = b[i] / d;
-            double xc = c[i] / d;
+            double xa = a[i] / li[i];
+            double xb = b[i] / li[i];
             a[i] = xa;
             b[i] = xb;
-            c[i] = xc;
             for (int k = 0; k < i; k++) {
-                double l = li[k];
-                a[k] -= l * xa;
-                b[k] -= l * xb;
-                c[k] -= l * xc;
+                a[k] -= li[k] * xa;
+                b[k] -= li[k] * xb;
+            }
+        }
+    }
+
+    /**
+     * Deletes row/column {@code pos}; the rows after it move up by one.
+     *
+     * @param pos zero-based position, {@code 0 ≤ pos < size()}
+     */
+    public void remove(int pos) {
+        remove(pos, new double[size], new double[size], new double[size]);
+    }
+
+    /** Solves {@code S x = b} in place for the first {@code size()} entries of {@code x}. */
+    public void solveInPlace(double[] x) {
+        int m = size;
+        for (int i = 0; i < m; i++) {
+            double[] li = rows[i];
+            x[i] = (x[i] - dot(li, x, i)) / li[i];
+        }
+        for (int i = m - 1; i >= 0; i--) {
+            double[] li = rows[i];
+            double xi = x[i] / li[i];
+            x[i] = xi;
+            for (int k = 0; k < i; k++) {
+                x[k] -= li[k] * xi;
             }
         }
     }

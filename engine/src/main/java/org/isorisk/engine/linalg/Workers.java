@@ -12,7 +12,7 @@ import java.util.concurrent.atomic.AtomicInteger;
  * The small shared pool of daemon threads behind the parallel kernels: created on first use, idle threads
  * retire after a minute, and the calling thread always does one part itself.
  */
-final class Workers {
+public final class Workers {
     private Workers() {
     }
 
@@ -20,12 +20,13 @@ final class Workers {
     private static volatile ExecutorService pool;
 
     /** One part of a split piece of work. */
-    interface Part {
+    public interface Part {
+        /** Does part number {@code part}. */
         void run(int part);
     }
 
     /** Runs parts 1..parts−1 on the pool and part 0 on the calling thread; returns when all are done. */
-    static void run(int parts, Part body) {
+    public static void run(int parts, Part body) {
         if (parts <= 1) {
             body.run(0);
             return;

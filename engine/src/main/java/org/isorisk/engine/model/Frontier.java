@@ -61,6 +61,23 @@ public record Frontier(List<Corner> corners, List<Solution> points, MertonScalar
                     "target return %.2f %% is outside the frontier's corners, which run from %.2f %% to %.2f %%",
                     m * 100, lo * 100, hi * 100), List.of("target_return"));
         }
+        if (branch.size() > 1 && branch == corners && m >= hi - tol) {
+            // The highest return: corners whose returns equal it up to rounding are one point with a kink between
+            // them; as at the solver, report the one nearest the inside (smallest return-target multiplier).
+            int j = branch.size() - 1;
+            while (j > 0 && branch.get(j - 1).expectedReturn() >= hi - tol) {
+                j--;
+            }
+            return branch.get(j).portfolio();
+        }
+        if (branch.size() > 1 && branch == inefficientCorners && m <= lo + tol) {
+            // The lowest return, likewise from the inside.
+            int j = 0;
+            while (j + 1 < branch.size() && branch.get(j + 1).expectedReturn() <= lo + tol) {
+                j++;
+            }
+            return branch.get(j).portfolio();
+        }
         int k = 0;
         while (k + 2 < branch.size() && branch.get(k + 1).expectedReturn() < m) {
             k++;

@@ -5,6 +5,7 @@ import java.util.Arrays;
 import java.util.List;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.linalg.UpdatableCholesky;
+import org.isorisk.engine.linalg.Workers;
 
 /**
  * Markowitz's critical line method (Markowitz 1956; the exposition of Niedermayer &amp; Niedermayer 2010) for
@@ -19,8 +20,13 @@ import org.isorisk.engine.linalg.UpdatableCholesky;
  * is the largest λ at which a free weight reaches a bound (it leaves F) or an out multiplier reaches zero (it
  * enters F). λ is the return-target multiplier ∂V*∂m, so corners are the frontier's turning points.
  *
- * <p>The free block {@code Σ_FF} is held as a Cholesky factor updated by one row/column per event
- * ({@link UpdatableCholesky}), never refactored: each corner costs {@code O(|F|² + n|F|)}.
+ * <p>The free block {@code Σ_FF = LL'} is held as a Cholesky factor updated by one row/column per event
+ * ({@link UpdatableCholesky}), never refactored, together with {@code K = L⁻¹Σ_{F,O}} (O the assets out at a
+ * bound) and the half solves {@code L⁻¹1}, {@code L⁻¹r_F}, {@code L⁻¹c_F}. An entering asset's column of K is its
+ * new row of the factor; a leaving asset's new column of K is its deleted row of the factor carried through the
+ * same Givens rotations. Each corner then costs one pass over K ({@code |F|·|O|}: the new row of K and every out
+ * asset's multiplier together), one backward solve ({@code |F|²/2}) for the free weights, and {@code O(n)}
+ * besides; a deletion adds the rotations ({@code O(|F|² + |F|·|O|)}).
  *
  * <p>Ties in {@code r} at the start are resolved exactly: the start is the minimum-variance portfolio on the set
  * of highest-return portfolios, found by a sweep of the tied assets alone (tie-broken by index), so that the
@@ -164,28 +170,58 @@ final class CriticalLine {
     private final double[] w;
     /** c_i = Σ_{j out or frozen} σ_ij w_j, kept current as assets move in and out. */
     private final double[] c;
+    /** The free block's factor {@code Σ_FF = LL'}, rows in free-set order. */
     private final UpdatableCholesky chol;
     private final int[] free;
     private int nf;
     private double outSum;
 
-    /** {@code S⁻¹1}, {@code S⁻¹r_F}, {@code S⁻¹c_F} in free-set order, kept current through every change. */
-    private final double[] x1;
-    private final double[] xr;
-    private final double[] xg;
-    private final double[] work;
-    private int sinceRefresh;
-    private boolean starting = true;
+    /**
+     * {@code K = L⁻¹Σ_{F,O}}: row k for the factor's column k, column q for the out asset {@code outs[q]} (frozen
+     * assets have no column: they never enter). Its column for an asset about to enter is that asset's new row of
+     * the factor, and {@code K'L'v = Σ_{O,F}v} gives every out asset's multiplier from the free weights in
+     * {@code O(|F|·|O|)}, the least any corner can cost.
+     */
+    private final double[][] k;
+    private final int[] outs;
+    /** Column of K of each out asset, −1 for free and frozen ones. */
+    private final int[] colOf;
+    private int no;
 
-    /** Changes of the free set between full re-solves of the three systems (bounds the drift of the updates). */
+    /** Half solves {@code L⁻¹1}, {@code L⁻¹r_F}, {@code L⁻¹c_F}, kept current through every change. */
+    private final double[] y1;
+    private final double[] yr;
+    private final double[] yg;
+    /** {@code L'α} and {@code L'β}, then α and β themselves (free-set order). */
+    private final double[] ya;
+    private final double[] yb;
+    private final double[] alpha;
+    private final double[] beta;
+    /** {@code Σ_{i,F}α} and {@code Σ_{i,F}β} for the out asset of each column of K. */
+    private final double[] sa;
+    private final double[] sb;
+    /** Scratch: an entering asset's column of K, rotations of a deletion, the deleted row. */
+    private final double[] ell;
+    private final double[] accL;
+    private final double[] cos;
+    private final double[] sin;
+    private final double[] oldRow;
+    private int sinceRefresh;
+
+    /** Changes of the free set between fresh forward solves of the three half solves (bounds their drift). */
     private static final int REFRESH = 32;
 
-    private double[] alpha;
-    private double[] beta;
     private double nu0;
     private double nu1;
 
-    private CriticalLine(Problem p, double[] r, int maxIterations) {
+    /** Threads for the two halves of each corner's work (the pass over K and the backward solve). */
+    private final int threads;
+
+    /** Work (entries of K and of the factor read per corner) above which the two halves run on two threads. */
+    private static final long PARALLEL_WORK = 150_000;
+
+    private CriticalLine(Problem p, double[] r, int maxIterations, int threads) {
+        this.threads = threads;
         this.p = p;
         this.r = r;
         this.maxIterations = maxIterations;
@@ -195,10 +231,23 @@ final class CriticalLine {
         this.c = new double[n];
         this.free = new int[n];
         this.chol = new UpdatableCholesky(n);
-        this.x1 = new double[n];
-        this.xr = new double[n];
-        this.xg = new double[n];
-        this.work = new double[n];
+        this.k = new double[n][];
+        this.outs = new int[n];
+        this.colOf = new int[n];
+        this.y1 = new double[n];
+        this.yr = new double[n];
+        this.yg = new double[n];
+        this.ya = new double[n];
+        this.yb = new double[n];
+        this.alpha = new double[n];
+        this.beta = new double[n];
+        this.sa = new double[n];
+        this.sb = new double[n];
+        this.ell = new double[n];
+        this.accL = new double[n];
+        this.cos = new double[n];
+        this.sin = new double[n];
+        this.oldRow = new double[n];
     }
 
     /**
@@ -211,7 +260,15 @@ final class CriticalLine {
      * @return the corners in walk order: the start (λ = +∞), then each event, then λ = 0 (unless stopped early)
      */
     static List<Point> walk(Problem p, double[] r, double stopAt, int maxIterations) {
-        CriticalLine cl = new CriticalLine(p, r, maxIterations);
+        return walk(p, r, stopAt, maxIterations, 1);
+    }
+
+    /**
+     * As {@link #walk(Problem, double[], double, int)}, with up to {@code threads} threads (two are used: each
+     * corner's pass over K and its backward solve are independent).
+     */
+    static List<Point> walk(Problem p, double[] r, double stopAt, int maxIterations, int threads) {
+        CriticalLine cl = new CriticalLine(p, r, maxIterations, threads);
         cl.start();
         return cl.run(stopAt);
     }
@@ -271,7 +328,7 @@ final class CriticalLine {
             for (int k = 0; k < tied.size(); k++) {
                 tieBreak[tied.get(k)] = -k;
             }
-            List<Point> facePath = walk(face, tieBreak, Double.NEGATIVE_INFINITY, maxIterations);
+            List<Point> facePath = walk(face, tieBreak, Double.NEGATIVE_INFINITY, maxIterations, threads);
             Point end = facePath.get(facePath.size() - 1);
             // The face's bounds are tighter (implied by its own small budget), so read each tied asset's state
             // from its weight against this problem's bounds.
@@ -317,20 +374,25 @@ final class CriticalLine {
             }
             state[implied] = FREE;
         }
-        // c and the factor.
+        // c, the columns of K, and the factor (built by the same bordering as every later entry).
         outSum = 0;
+        Arrays.fill(colOf, -1);
         for (int j = 0; j < n; j++) {
             if (state[j] != FREE) {
                 outSum += w[j];
                 addToC(j, w[j]);
             }
+            if (state[j] != FROZEN) {
+                colOf[j] = no;
+                outs[no++] = j;
+            }
         }
         for (int i = 0; i < n; i++) {
             if (state[i] == FREE) {
                 insert(i);
+                extend(i, false);
             }
         }
-        starting = false;
         refresh();
     }
 
@@ -360,7 +422,7 @@ final class CriticalLine {
     private List<Point> run(double stopAt) {
         List<Point> path = new ArrayList<>();
         double lambda = Double.POSITIVE_INFINITY;
-        solveFree();
+        project(-1);
         path.add(snapshot(lambda, List.of()));
         int lastAsset = -1;
         for (int it = 0; ; it++) {
@@ -379,10 +441,10 @@ final class CriticalLine {
             List<Event> here = new ArrayList<>();
             // Weights at the corner from the stretch just walked, then the change.
             moveFreeTo(lambda);
-            apply(next);
+            int entered = apply(next);
             here.add(new Event(next.asset, next.kind));
             lastAsset = next.asset;
-            solveFree();
+            project(entered);
             Point pt = snapshot(lambda, here);
             path.add(pt);
             if (returnOf(pt.weights()) < stopAt) {
@@ -438,17 +500,12 @@ final class CriticalLine {
             best = better(best, new Candidate(Math.min(le, lambda), i, kind), same);
         }
         // Out assets whose multiplier reaches zero.
-        double[] sa = new double[n];
-        double[] sb = new double[n];
-        crossProducts(sa, sb);
-        for (int i = 0; i < n; i++) {
+        for (int q = 0; q < no; q++) {
+            int i = outs[q];
             byte s = state[i];
-            if (s != LOWER && s != UPPER) {
-                continue;
-            }
-            double pi = 2 * (sa[i] + c[i]) - nu0;
-            double qi = 2 * sb[i] - nu1 - r[i];
-            double tiny = 1e-14 * (Math.abs(2 * sb[i]) + Math.abs(nu1) + Math.abs(r[i]));
+            double pi = 2 * (sa[q] + c[i]) - nu0;
+            double qi = 2 * sb[q] - nu1 - r[i];
+            double tiny = 1e-14 * (Math.abs(2 * sb[q]) + Math.abs(nu1) + Math.abs(r[i]));
             if (!(Math.abs(qi) > tiny)) {
                 continue;
             }
@@ -485,116 +542,36 @@ final class CriticalLine {
         return b.lambda > a.lambda ? b : a;
     }
 
-    /**
-     * For every out asset i: {@code sa_i = Σ_{j∈F} σ_ij α_j}, {@code sb_i = Σ_{j∈F} σ_ij β_j}. With few free
-     * assets, as sums of the free assets' rows (Σ is symmetric; whole rows stream through memory); with few out
-     * assets, as dot products along the out assets' rows. Either way Σ is read min(|F|, |out|) rows at a time.
-     */
-    private void crossProducts(double[] sa, double[] sb) {
-        double[][] sigma = p.sigma;
-        int out = 0;
-        for (int i = 0; i < n; i++) {
-            out += state[i] == LOWER || state[i] == UPPER ? 1 : 0;
-        }
-        if (nf <= out) {
-            for (int k = 0; k < nf; k++) {
-                double[] row = sigma[free[k]];
-                double a = alpha[k];
-                double b = beta[k];
-                if (b == 0) {
-                    for (int i = 0; i < n; i++) {
-                        sa[i] += row[i] * a;
-                    }
-                } else {
-                    for (int i = 0; i < n; i++) {
-                        double v = row[i];
-                        sa[i] += v * a;
-                        sb[i] += v * b;
-                    }
-                }
-            }
-            return;
-        }
-        int m = nf;
-        int[] f = free;
-        double[] al = alpha;
-        double[] be = beta;
-        for (int i = 0; i < n; i++) {
-            if (state[i] != LOWER && state[i] != UPPER) {
-                continue;
-            }
-            double[] row = sigma[i];
-            double x0 = 0;
-            double x1 = 0;
-            double y0 = 0;
-            double y1 = 0;
-            int k = 0;
-            for (; k + 1 < m; k += 2) {
-                double v0 = row[f[k]];
-                double v1 = row[f[k + 1]];
-                x0 += v0 * al[k];
-                x1 += v1 * al[k + 1];
-                y0 += v0 * be[k];
-                y1 += v1 * be[k + 1];
-            }
-            for (; k < m; k++) {
-                double v = row[f[k]];
-                x0 += v * al[k];
-                y0 += v * be[k];
-            }
-            sa[i] = x0 + x1;
-            sb[i] = y0 + y1;
-        }
-    }
-
     private void moveFreeTo(double lambda) {
-        for (int k = 0; k < nf; k++) {
-            w[free[k]] = alpha[k] + (beta[k] == 0 ? 0 : lambda * beta[k]);
+        for (int q = 0; q < nf; q++) {
+            w[free[q]] = alpha[q] + (beta[q] == 0 ? 0 : lambda * beta[q]);
         }
     }
 
-    private void apply(Candidate e) {
+    /** Makes the change; returns the asset that entered the free set, or −1 when one left it. */
+    private int apply(Candidate e) {
         int i = e.asset;
         switch (e.kind) {
             case LEAVES_AT_LOWER, LEAVES_AT_UPPER -> {
-                int pos = -1;
-                for (int k = 0; k < nf; k++) {
-                    if (free[k] == i) {
-                        pos = k;
-                    }
-                }
                 boolean low = e.kind == Kind.LEAVES_AT_LOWER;
-                double bound = low ? p.lo[i] : p.hi[i];
-                // Column pos of S⁻¹ gives the smaller system's solutions (bordering in reverse), c gaining σ_·i w_i.
-                double[] v = work;
-                chol.unitSolution(pos, v);
-                double vp = v[pos];
-                double f1 = x1[pos] / vp;
-                double fr = xr[pos] / vp;
-                double fg = (xg[pos] + bound) / vp;
-                for (int k = 0; k < nf; k++) {
-                    x1[k] -= v[k] * f1;
-                    xr[k] -= v[k] * fr;
-                    xg[k] -= v[k] * fg;
-                }
-                shiftOut(x1, pos, nf);
-                shiftOut(xr, pos, nf);
-                shiftOut(xg, pos, nf);
-                chol.remove(pos);
-                System.arraycopy(free, pos + 1, free, pos, nf - pos - 1);
-                nf--;
+                leave(i, low ? p.lo[i] : p.hi[i]);
                 state[i] = low ? LOWER : UPPER;
-                w[i] = bound;
-                outSum += w[i];
-                addToC(i, w[i]);
-                sinceRefresh++;
+                return -1;
             }
             case ENTERS_FROM_LOWER, ENTERS_FROM_UPPER -> {
-                outSum -= w[i];
-                addToC(i, -w[i]);
+                // c loses σ_·i w_i, so L⁻¹c_F loses w_i L⁻¹σ_Fi, which is the asset's column of K.
+                double wi = w[i];
+                outSum -= wi;
+                addToC(i, -wi);
+                int col = colOf[i];
+                for (int q = 0; q < nf; q++) {
+                    yg[q] -= wi * k[q][col];
+                }
                 state[i] = FREE;
                 insert(i);
+                return i;
             }
+            default -> throw new IllegalStateException(e.kind.toString());
         }
     }
 
@@ -608,22 +585,19 @@ final class CriticalLine {
         }
     }
 
-    private static void shiftOut(double[] a, int pos, int len) {
-        System.arraycopy(a, pos + 1, a, pos, len - pos - 1);
-    }
-
     /**
-     * Adds asset i to the free set. Unless starting, the three solutions are bordered: with {@code z = S⁻¹s}
-     * (s the new column) and the Schur complement {@code d − s'z}, each becomes {@code [x − z t; t]} with
-     * {@code t = (b_i − s'x)/(d − s'z)}; c has already lost σ_·i w_i, so S⁻¹c_F first loses {@code w_i z}.
+     * Adds asset i (already counted out of c) to the free set: its column of K is its new row of the factor, so
+     * bordering the factor and the three half solves costs {@code O(|F|)}; its column leaves K (the last column
+     * takes its place). The new row of K is made by {@link #extend}.
      */
     private void insert(int i) {
-        double[] col = new double[nf];
-        double[] row = p.sigma[i];
-        for (int k = 0; k < nf; k++) {
-            col[k] = row[free[k]];
+        int m = nf;
+        int col = colOf[i];
+        for (int q = 0; q < m; q++) {
+            ell[q] = k[q][col];
         }
-        double rel = chol.append(col, row[i], PIVOT_TOL);
+        double diag = p.sigma[i][i];
+        double rel = chol.appendRow(ell, diag, PIVOT_TOL);
         if (!(rel > PIVOT_TOL)) {
             throw new NoSolutionException(NoSolutionException.Reason.NOT_CONVEX, String.format(java.util.Locale.ROOT,
                     "the covariance block of the free assets is singular when asset number %d joins them (relative "
@@ -631,79 +605,259 @@ final class CriticalLine {
                             + "minimum-variance mix is not unique; fix: remove one of the duplicated assets or "
                             + "repair the covariance matrix", i + 1, rel), List.of());
         }
-        if (!starting) {
-            int m = nf;
-            double[] z = work;
-            chol.borderSolution(z);
-            double sz = 0;
-            double s1 = 0;
-            double sr = 0;
-            double sg = 0;
-            double wi = w[i];
-            for (int k = 0; k < m; k++) {
-                xg[k] -= wi * z[k];
-                sz += col[k] * z[k];
-                s1 += col[k] * x1[k];
-                sr += col[k] * xr[k];
-                sg += col[k] * xg[k];
+        double d = chol.factorEntry(m, m);
+        int last = no - 1;
+        if (col != last) {
+            for (int q = 0; q < m; q++) {
+                double[] row = k[q];
+                row[col] = row[last];
             }
-            double schur = row[i] - sz;
-            double t1 = (1 - s1) / schur;
-            double tr = (r[i] - sr) / schur;
-            double tg = (c[i] - sg) / schur;
-            for (int k = 0; k < m; k++) {
-                x1[k] -= z[k] * t1;
-                xr[k] -= z[k] * tr;
-                xg[k] -= z[k] * tg;
-            }
-            x1[m] = t1;
-            xr[m] = tr;
-            xg[m] = tg;
-            sinceRefresh++;
+            outs[col] = outs[last];
+            colOf[outs[col]] = col;
         }
+        colOf[i] = -1;
+        no--;
+        double s1 = 0;
+        double sr = 0;
+        double sg = 0;
+        for (int q = 0; q < m; q++) {
+            s1 += ell[q] * y1[q];
+            sr += ell[q] * yr[q];
+            sg += ell[q] * yg[q];
+        }
+        y1[m] = (1 - s1) / d;
+        yr[m] = (r[i] - sr) / d;
+        yg[m] = (c[i] - sg) / d;
         free[nf++] = i;
+        sinceRefresh++;
     }
 
-    /** Solves the three systems afresh from the factor. */
-    private void refresh() {
-        for (int k = 0; k < nf; k++) {
-            int i = free[k];
-            x1[k] = 1;
-            xr[k] = r[i];
-            xg[k] = c[i];
+    /**
+     * Asset {@code free[pos]} leaves the free set at weight {@code bound}: the factor loses its row (Givens
+     * rotations Q), the half solves and K become {@code Q'y} and {@code Q'K} without their last entry/row, and the
+     * asset gains a column of K, {@code L̃⁻¹σ_{F̃,i}}, which is the deleted row of the factor rotated the same way;
+     * c gains σ_·i·bound, so {@code L̃⁻¹c_F̃} gains bound times that column.
+     */
+    private void leave(int i, double bound) {
+        int pos = -1;
+        for (int q = 0; q < nf; q++) {
+            if (free[q] == i) {
+                pos = q;
+            }
         }
-        chol.solveInPlace(x1, xr, xg);
+        chol.remove(pos, cos, sin, oldRow);
+        int m = nf - 1;
+        UpdatableCholesky.rotate(y1, pos, m, cos, sin);
+        UpdatableCholesky.rotate(yr, pos, m, cos, sin);
+        UpdatableCholesky.rotate(yg, pos, m, cos, sin);
+        UpdatableCholesky.rotate(oldRow, pos, m, cos, sin);
+        // Q'K, one pair of rows at a time; row m (the old last row) is dropped.
+        for (int j = pos; j < m; j++) {
+            double[] top = k[j];
+            double[] next = k[j + 1];
+            double cj = cos[j];
+            double sj = sin[j];
+            for (int q = 0; q < no; q++) {
+                double x = top[q];
+                double y = next[q];
+                top[q] = cj * x + sj * y;
+                next[q] = -sj * x + cj * y;
+            }
+        }
+        for (int q = 0; q < m; q++) {
+            k[q][no] = oldRow[q];
+        }
+        outs[no] = i;
+        colOf[i] = no;
+        no++;
+        System.arraycopy(free, pos + 1, free, pos, nf - pos - 1);
+        nf = m;
+        w[i] = bound;
+        outSum += bound;
+        addToC(i, bound);
+        for (int q = 0; q < m; q++) {
+            yg[q] += bound * oldRow[q];
+        }
+        sinceRefresh++;
+    }
+
+    /**
+     * One pass over K: when an asset has just entered ({@code entered ≥ 0}), K's new last row
+     * {@code (σ_{i,O} − ℓ'K)/d}; with {@code cross}, every out asset's {@code Σ_{i,F}α = (K'L'α)_i} and
+     * {@code Σ_{i,F}β}. Both read K once, together.
+     */
+    private void extend(int entered, boolean cross) {
+        int rows = entered >= 0 ? nf - 1 : nf;
+        int cols = no;
+        if (entered >= 0) {
+            Arrays.fill(accL, 0, cols, 0.0);
+        }
+        if (cross) {
+            Arrays.fill(sa, 0, cols, 0.0);
+            Arrays.fill(sb, 0, cols, 0.0);
+        }
+        // Four rows at a time: each accumulator entry is loaded and stored once per four rows of K.
+        int q = 0;
+        for (; q + 3 < rows; q += 4) {
+            double[] r0 = k[q];
+            double[] r1 = k[q + 1];
+            double[] r2 = k[q + 2];
+            double[] r3 = k[q + 3];
+            if (entered >= 0) {
+                double l0 = ell[q];
+                double l1 = ell[q + 1];
+                double l2 = ell[q + 2];
+                double l3 = ell[q + 3];
+                if (cross) {
+                    accumulate3(r0, r1, r2, r3, q, l0, l1, l2, l3, cols);
+                    continue;
+                }
+                for (int j = 0; j < cols; j++) {
+                    accL[j] += (l0 * r0[j] + l1 * r1[j]) + (l2 * r2[j] + l3 * r3[j]);
+                }
+            }
+            if (cross) {
+                double a0 = ya[q];
+                double a1 = ya[q + 1];
+                double a2 = ya[q + 2];
+                double a3 = ya[q + 3];
+                double b0 = yb[q];
+                double b1 = yb[q + 1];
+                double b2 = yb[q + 2];
+                double b3 = yb[q + 3];
+                for (int j = 0; j < cols; j++) {
+                    double v0 = r0[j];
+                    double v1 = r1[j];
+                    double v2 = r2[j];
+                    double v3 = r3[j];
+                    sa[j] += (a0 * v0 + a1 * v1) + (a2 * v2 + a3 * v3);
+                    sb[j] += (b0 * v0 + b1 * v1) + (b2 * v2 + b3 * v3);
+                }
+            }
+        }
+        for (; q < rows; q++) {
+            double[] row = k[q];
+            if (entered >= 0) {
+                double l = ell[q];
+                for (int j = 0; j < cols; j++) {
+                    accL[j] += l * row[j];
+                }
+            }
+            if (cross) {
+                double a = ya[q];
+                double b = yb[q];
+                for (int j = 0; j < cols; j++) {
+                    sa[j] += a * row[j];
+                    sb[j] += b * row[j];
+                }
+            }
+        }
+        if (entered >= 0) {
+            int m = nf - 1;
+            double[] row = k[m] == null ? (k[m] = new double[n]) : k[m];
+            double d = chol.factorEntry(m, m);
+            double[] s = p.sigma[entered];
+            for (int j = 0; j < cols; j++) {
+                row[j] = (s[outs[j]] - accL[j]) / d;
+            }
+            if (cross) {
+                double a = ya[m];
+                double b = yb[m];
+                for (int j = 0; j < cols; j++) {
+                    sa[j] += a * row[j];
+                    sb[j] += b * row[j];
+                }
+            }
+        }
+    }
+
+    /** The fused inner loop of {@link #extend} for four rows of K: the new row's sums and both cross products. */
+    private void accumulate3(double[] r0, double[] r1, double[] r2, double[] r3, int q, double l0, double l1,
+                             double l2, double l3, int cols) {
+        double a0 = ya[q];
+        double a1 = ya[q + 1];
+        double a2 = ya[q + 2];
+        double a3 = ya[q + 3];
+        double b0 = yb[q];
+        double b1 = yb[q + 1];
+        double b2 = yb[q + 2];
+        double b3 = yb[q + 3];
+        double[] al = accL;
+        double[] xa = sa;
+        double[] xb = sb;
+        for (int j = 0; j < cols; j++) {
+            double v0 = r0[j];
+            double v1 = r1[j];
+            double v2 = r2[j];
+            double v3 = r3[j];
+            al[j] += (l0 * v0 + l1 * v1) + (l2 * v2 + l3 * v3);
+            xa[j] += (a0 * v0 + a1 * v1) + (a2 * v2 + a3 * v3);
+            xb[j] += (b0 * v0 + b1 * v1) + (b2 * v2 + b3 * v3);
+        }
+    }
+
+    /** The three half solves afresh from the factor. */
+    private void refresh() {
+        for (int q = 0; q < nf; q++) {
+            int i = free[q];
+            y1[q] = 1;
+            yr[q] = r[i];
+            yg[q] = c[i];
+        }
+        chol.forwardInPlace(y1, yr, yg);
         sinceRefresh = 0;
     }
 
-    /** α, β, ν₀, ν₁ of the current free set. */
-    private void solveFree() {
+    /**
+     * ν₀, ν₁, α and β of the current free set, and every out asset's cross products (with K's new row first when
+     * an asset has just entered): {@code 1'S⁻¹1 = y₁'y₁} and the like, {@code L'α = ½ν₀y₁ − y_g},
+     * {@code L'β = ½(y_r + ν₁y₁)}, then one backward solve for α and β together.
+     */
+    private void project(int entered) {
         if (sinceRefresh >= REFRESH) {
             refresh();
         }
         int m = nf;
         boolean flat = true;
         double r0 = r[free[0]];
-        for (int k = 0; k < m; k++) {
-            flat &= r[free[k]] == r0;
+        for (int q = 0; q < m; q++) {
+            flat &= r[free[q]] == r0;
         }
         double cc = 0;
         double aa = 0;
         double gg = 0;
-        for (int k = 0; k < m; k++) {
-            cc += x1[k];
-            aa += xr[k];
-            gg += xg[k];
+        for (int q = 0; q < m; q++) {
+            cc += y1[q] * y1[q];
+            aa += y1[q] * yr[q];
+            gg += y1[q] * yg[q];
         }
         double bf = p.budget - outSum;
         nu0 = 2 * (bf + gg) / cc;
         nu1 = flat ? -r0 : -aa / cc;
-        alpha = new double[m];
-        beta = new double[m];
-        for (int k = 0; k < m; k++) {
-            alpha[k] = 0.5 * nu0 * x1[k] - xg[k];
-            beta[k] = flat ? 0 : 0.5 * (xr[k] + nu1 * x1[k]);
+        for (int q = 0; q < m; q++) {
+            ya[q] = 0.5 * nu0 * y1[q] - yg[q];
+            yb[q] = flat ? 0 : 0.5 * (yr[q] + nu1 * y1[q]);
         }
+        long work = (long) m * no + (long) m * m / 2;
+        if (threads >= 2 && work > PARALLEL_WORK) {
+            Workers.run(2, part -> {
+                if (part == 0) {
+                    extend(entered, true);
+                } else {
+                    freeWeights(m);
+                }
+            });
+        } else {
+            extend(entered, true);
+            freeWeights(m);
+        }
+    }
+
+    /** α and β from {@code L'α} and {@code L'β}, by one backward solve for both. */
+    private void freeWeights(int m) {
+        System.arraycopy(ya, 0, alpha, 0, m);
+        System.arraycopy(yb, 0, beta, 0, m);
+        chol.backwardInPlace(alpha, beta);
     }
 
     private Point snapshot(double lambda, List<Event> events) {

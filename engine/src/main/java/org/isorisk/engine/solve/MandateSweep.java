@@ -291,7 +291,7 @@ final class MandateSweep {
      */
     private List<CriticalLine.Point> walk(double[] dir, double stopAt) {
         try {
-            return CriticalLine.walk(problem, dir, stopAt, settings.maxIterations());
+            return CriticalLine.walk(problem, dir, stopAt, settings.maxIterations(), settings.threads());
         } catch (NoSolutionException e) {
             if (e.reason() == NoSolutionException.Reason.NOT_CONVEX) {
                 factored();
