@@ -592,26 +592,11 @@ class CriticalLineTests {
     void twoThreadsGiveTheSameCornersToTheLastBitAsOne() {
         // Common practice, no source: splitting independent work over threads must not change the arithmetic.
         // 700 assets, most of them free near the minimum-variance end, so the corners' work is split there.
-        // Σ = BB' + D with loadings of either sign (invented numbers): long-only, nearly every asset is held there.
+        // The signed factor recipe (invented numbers): long-only, nearly every asset is held near the end.
         int n = 700;
-        java.util.Random rnd = new java.util.Random(41);
-        double[][] b = new double[n][4];
-        double[] mu = new double[n];
-        for (int i = 0; i < n; i++) {
-            for (int f = 0; f < 4; f++) {
-                b[i][f] = 0.1 * rnd.nextGaussian();
-            }
-            mu[i] = 0.03 + 0.02 * rnd.nextGaussian();
-        }
-        double[][] sigma = new double[n][n];
-        for (int i = 0; i < n; i++) {
-            for (int j = 0; j < n; j++) {
-                for (int f = 0; f < 4; f++) {
-                    sigma[i][j] += b[i][f] * b[j][f];
-                }
-            }
-            sigma[i][i] += 0.04 * (1 + rnd.nextDouble());
-        }
+        AssetUniverse u = FactorModels.signedUniverse(n, 41);
+        double[][] sigma = u.covariance();
+        double[] mu = u.expectedReturns();
         double[] hi = new double[n];
         Arrays.fill(hi, 0.05);
         CriticalLine.Problem p = CriticalLine.effective(sigma, 1, new double[n], hi, new boolean[n],
