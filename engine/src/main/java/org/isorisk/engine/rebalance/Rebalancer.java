@@ -213,6 +213,19 @@ public final class Rebalancer {
             if (mHi <= mLo) {
                 return low;
             }
+            if (Double.isInfinite(mHi)) {
+                // No limit caps the return: the minimum variance grows without bound along the target, so double
+                // the span until it passes today's; that end brackets the answer.
+                double step = Math.max(0.01, 0.1 * Math.abs(mLo));
+                for (int k = 0; k < 60; k++) {
+                    Solved s = solve(frozen, mLo + step);
+                    if (variance(s.p.weights(s.x)) >= v0) {
+                        break;
+                    }
+                    step *= 2;
+                }
+                mHi = mLo + step;
+            }
             Solved hi = solve(frozen, mHi);
             double vHi = variance(hi.p.weights(hi.x));
             if (vHi <= v0) {
@@ -265,6 +278,27 @@ public final class Rebalancer {
             if (!(mHi > mLo + 1e-12)) {
                 notes.add("Nearest: the efficient branch is a single point within the limits.");
                 return low;
+            }
+            if (Double.isInfinite(mHi)) {
+                // No limit caps the return (short positions allowed): along the branch the weights grow without
+                // bound, so the tracking error does too; double the span until it rises, which brackets the nearest.
+                double step = Math.max(0.01, 0.1 * Math.abs(mLo));
+                double teLow = trackingError(low.p.weights(low.x));
+                double prev = teLow;
+                double end = mLo + step;
+                for (int k = 0; k < 60; k++) {
+                    Solved s = solve(frozen, end);
+                    double te = trackingError(s.p.weights(s.x));
+                    if (te > prev && te > teLow) {
+                        break;
+                    }
+                    prev = te;
+                    step *= 2;
+                    end = mLo + step;
+                }
+                mHi = end;
+                notes.add(String.format(Locale.ROOT, "Nearest: no limit caps the return, so the search ran over targets "
+                        + "up to %s, beyond which the tracking error against today's only grows.", Breaches.pct(mHi)));
             }
             double[] t = new double[NEAREST_GRID];
             double[] te = new double[NEAREST_GRID];

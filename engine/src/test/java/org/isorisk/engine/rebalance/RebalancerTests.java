@@ -253,4 +253,48 @@ class RebalancerTests {
             assertTrue(r.trackingError() <= s.trackingError() + 1e-6, "target " + t);
         }
     }
+
+    @Test
+    void withOnlyTheBudgetTheNearestObjectiveMatchesTheClosedFormProjectionOntoTheFrontier() {
+        // Merton (1972): with only the budget, efficient weights are affine in the target, w(m) = g + h·m, so the
+        // tracking error² (g + hm − w0)'Σ(g + hm − w0) is least at m* = h'Σ(w0 − g) / h'Σh (above the minimum-
+        // variance return). g and h come from two closed-form solves.
+        Mandate m = Mandate.fullyInvested(4);
+        AssetUniverse u = universe();
+        double[] w1 = Allocator.solve(AllocationRequest.of(u, m, Objective.targetReturn(0.04))).weights();
+        double[] w2 = Allocator.solve(AllocationRequest.of(u, m, Objective.targetReturn(0.06))).weights();
+        double[] h = new double[4];
+        double[] g = new double[4];
+        for (int i = 0; i < 4; i++) {
+            h[i] = (w2[i] - w1[i]) / 0.02;
+            g[i] = w1[i] - 0.04 * h[i];
+        }
+        double num = 0;
+        double den = 0;
+        for (int i = 0; i < 4; i++) {
+            for (int j = 0; j < 4; j++) {
+                num += h[i] * u.covariance(i, j) * (W0[j] - g[j]);
+                den += h[i] * u.covariance(i, j) * h[j];
+            }
+        }
+        double best = num / den;
+        RebalanceResult r = Rebalancer.rebalance(request(m, TradingLimits.none(4), new RebalanceObjective.Nearest()));
+        assertEquals(best, r.proposedReturn(), 1e-7, "the nearest efficient portfolio's return");
+        for (int i = 0; i < 4; i++) {
+            assertEquals(g[i] + h[i] * best, r.proposal().weight(i), 1e-7, ASSETS.get(i));
+        }
+    }
+
+    @Test
+    void withOnlyTheBudgetTheSameRiskObjectiveReachesTodaysVolatility() {
+        // Merton (1972): V*(m) = (Cm² − 2Am + B)/D grows without bound, so today's variance is reached at a finite
+        // target; above it the minimum volatility is higher.
+        Mandate m = Mandate.fullyInvested(4);
+        RebalanceResult r = Rebalancer.rebalance(request(m, TradingLimits.none(4), new RebalanceObjective.SameRisk()));
+        assertEquals(r.currentVolatility(), r.proposedVolatility(), 1e-9);
+        assertTrue(r.proposedNetReturn() > r.currentReturn());
+        RebalanceResult above = Rebalancer.rebalance(request(m, TradingLimits.none(4),
+                new RebalanceObjective.TargetReturn(r.proposedNetReturn() + 1e-4)));
+        assertTrue(above.proposedVolatility() > r.currentVolatility());
+    }
 }
