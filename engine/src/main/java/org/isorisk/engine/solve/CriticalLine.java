@@ -390,7 +390,7 @@ final class CriticalLine {
         for (int i = 0; i < n; i++) {
             if (state[i] == FREE) {
                 insert(i);
-                extend(i, false);
+                extend(i);
             }
         }
         refresh();
@@ -682,77 +682,24 @@ final class CriticalLine {
     }
 
     /**
-     * One pass over K: when an asset has just entered ({@code entered ≥ 0}), K's new last row
-     * {@code (σ_{i,O} − ℓ'K)/d}; with {@code cross}, every out asset's {@code Σ_{i,F}α = (K'L'α)_i} and
-     * {@code Σ_{i,F}β}. Both read K once, together.
+     * One pass over K: every out asset's {@code Σ_{i,F}α = (K'L'α)_i} and {@code Σ_{i,F}β}, and, when an asset has
+     * just entered ({@code entered ≥ 0}), K's new last row {@code (σ_{i,O} − ℓ'K)/d} in the same pass.
      */
-    private void extend(int entered, boolean cross) {
-        int rows = entered >= 0 ? nf - 1 : nf;
+    private void extend(int entered) {
+        boolean grow = entered >= 0;
+        int rows = grow ? nf - 1 : nf;
         int cols = no;
-        if (entered >= 0) {
-            Arrays.fill(accL, 0, cols, 0.0);
-        }
-        if (cross) {
-            Arrays.fill(sa, 0, cols, 0.0);
-            Arrays.fill(sb, 0, cols, 0.0);
-        }
-        // Four rows at a time: each accumulator entry is loaded and stored once per four rows of K.
+        Arrays.fill(accL, 0, cols, 0.0);
+        Arrays.fill(sa, 0, cols, 0.0);
+        Arrays.fill(sb, 0, cols, 0.0);
         int q = 0;
         for (; q + 3 < rows; q += 4) {
-            double[] r0 = k[q];
-            double[] r1 = k[q + 1];
-            double[] r2 = k[q + 2];
-            double[] r3 = k[q + 3];
-            if (entered >= 0) {
-                double l0 = ell[q];
-                double l1 = ell[q + 1];
-                double l2 = ell[q + 2];
-                double l3 = ell[q + 3];
-                if (cross) {
-                    accumulate3(r0, r1, r2, r3, q, l0, l1, l2, l3, cols);
-                    continue;
-                }
-                for (int j = 0; j < cols; j++) {
-                    accL[j] += (l0 * r0[j] + l1 * r1[j]) + (l2 * r2[j] + l3 * r3[j]);
-                }
-            }
-            if (cross) {
-                double a0 = ya[q];
-                double a1 = ya[q + 1];
-                double a2 = ya[q + 2];
-                double a3 = ya[q + 3];
-                double b0 = yb[q];
-                double b1 = yb[q + 1];
-                double b2 = yb[q + 2];
-                double b3 = yb[q + 3];
-                for (int j = 0; j < cols; j++) {
-                    double v0 = r0[j];
-                    double v1 = r1[j];
-                    double v2 = r2[j];
-                    double v3 = r3[j];
-                    sa[j] += (a0 * v0 + a1 * v1) + (a2 * v2 + a3 * v3);
-                    sb[j] += (b0 * v0 + b1 * v1) + (b2 * v2 + b3 * v3);
-                }
-            }
+            accumulate(q, grow, cols);
         }
         for (; q < rows; q++) {
-            double[] row = k[q];
-            if (entered >= 0) {
-                double l = ell[q];
-                for (int j = 0; j < cols; j++) {
-                    accL[j] += l * row[j];
-                }
-            }
-            if (cross) {
-                double a = ya[q];
-                double b = yb[q];
-                for (int j = 0; j < cols; j++) {
-                    sa[j] += a * row[j];
-                    sb[j] += b * row[j];
-                }
-            }
+            accumulate(q, grow ? ell[q] : 0, cols);
         }
-        if (entered >= 0) {
+        if (grow) {
             int m = nf - 1;
             double[] row = k[m] == null ? (k[m] = new double[n]) : k[m];
             double d = chol.factorEntry(m, m);
@@ -760,20 +707,23 @@ final class CriticalLine {
             for (int j = 0; j < cols; j++) {
                 row[j] = (s[outs[j]] - accL[j]) / d;
             }
-            if (cross) {
-                double a = ya[m];
-                double b = yb[m];
-                for (int j = 0; j < cols; j++) {
-                    sa[j] += a * row[j];
-                    sb[j] += b * row[j];
-                }
-            }
+            accumulate(m, 0, cols);
         }
     }
 
-    /** The fused inner loop of {@link #extend} for four rows of K: the new row's sums and both cross products. */
-    private void accumulate3(double[] r0, double[] r1, double[] r2, double[] r3, int q, double l0, double l1,
-                             double l2, double l3, int cols) {
+    /**
+     * Rows q..q+3 of K into the three accumulators (ℓ'K, K'L'α, K'L'β): each accumulator entry is loaded and
+     * stored once per four rows.
+     */
+    private void accumulate(int q, boolean grow, int cols) {
+        double[] r0 = k[q];
+        double[] r1 = k[q + 1];
+        double[] r2 = k[q + 2];
+        double[] r3 = k[q + 3];
+        double l0 = grow ? ell[q] : 0;
+        double l1 = grow ? ell[q + 1] : 0;
+        double l2 = grow ? ell[q + 2] : 0;
+        double l3 = grow ? ell[q + 3] : 0;
         double a0 = ya[q];
         double a1 = ya[q + 1];
         double a2 = ya[q + 2];
@@ -793,6 +743,19 @@ final class CriticalLine {
             al[j] += (l0 * v0 + l1 * v1) + (l2 * v2 + l3 * v3);
             xa[j] += (a0 * v0 + a1 * v1) + (a2 * v2 + a3 * v3);
             xb[j] += (b0 * v0 + b1 * v1) + (b2 * v2 + b3 * v3);
+        }
+    }
+
+    /** One row q of K into the three accumulators, with ℓ-coefficient {@code l}. */
+    private void accumulate(int q, double l, int cols) {
+        double[] row = k[q];
+        double a = ya[q];
+        double b = yb[q];
+        for (int j = 0; j < cols; j++) {
+            double v = row[j];
+            accL[j] += l * v;
+            sa[j] += a * v;
+            sb[j] += b * v;
         }
     }
 
@@ -842,13 +805,13 @@ final class CriticalLine {
         if (threads >= 2 && work > PARALLEL_WORK) {
             Workers.run(2, part -> {
                 if (part == 0) {
-                    extend(entered, true);
+                    extend(entered);
                 } else {
                     freeWeights(m);
                 }
             });
         } else {
-            extend(entered, true);
+            extend(entered);
             freeWeights(m);
         }
     }
