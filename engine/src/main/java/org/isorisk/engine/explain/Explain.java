@@ -33,7 +33,9 @@ public final class Explain {
         double step = isReturn ? RETURN_STEP : WEIGHT_STEP;
         double dv = m.volatilityPerUnit() * step;
         String verb = dv > 0 ? "raises" : dv < 0 ? "lowers" : "leaves";
-        String tail = dv == 0 ? "volatility unchanged" : "volatility by " + percent(Math.abs(dv));
+        // Below half a basis point the two-decimal percent would read "0.00 %", which looks like no effect at all.
+        String tail = dv == 0 ? "volatility unchanged"
+                : Math.abs(dv) < 0.00005 ? "volatility by less than 0.01 %" : "volatility by " + percent(Math.abs(dv));
         String lead = switch (kind(c)) {
             case "target_return" -> "Raising the return target by " + percent(step);
             case "budget" -> "Raising the budget (sum of weights) by " + percent(step);

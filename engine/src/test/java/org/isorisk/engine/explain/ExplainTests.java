@@ -27,4 +27,11 @@ class ExplainTests {
         assertEquals("The upper limit of Cash is not binding: moving it a little changes nothing.",
                 Explain.sentence(new Multiplier("upper:Cash", 0, 0, false)));
     }
+
+    @Test
+    void aTinyButNonZeroEffectIsNotShownAsZero() {
+        // 0.002 volatility per unit × a 1 % step = 0.002 %: printed as "less than 0.01 %", never as "0.00 %".
+        assertEquals("Raising the upper limit of Cash by 1.00 % lowers volatility by less than 0.01 %.",
+                Explain.sentence(new Multiplier("upper:Cash", -0.0001, -0.002, true)));
+    }
 }
