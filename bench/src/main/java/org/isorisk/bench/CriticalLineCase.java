@@ -51,10 +51,11 @@ final class CriticalLineCase implements BenchCase {
     @Override
     public void run(Options options, PrintStream out) throws Exception {
         SolverSettings settings = SolverSettings.defaults().withThreads(options.threads());
-        out.printf(Locale.ROOT, "java %s, %d thread(s); medians after %d warm-up run(s)%n",
-                System.getProperty("java.version"), settings.threads(), options.warmup());
-        out.printf(Locale.ROOT, "%6s %-7s %8s %6s %12s %12s %10s %10s %9s %7s%n", "n", "model", "corners", "free",
-                "frontier ms", "both ms", "minvar ms", "worst", "peak MB", "target");
+        out.printf(Locale.ROOT, "java %s, %d thread(s), max heap %.0f MB; medians after %d warm-up run(s)%n",
+                System.getProperty("java.version"), settings.threads(), Runtime.getRuntime().maxMemory() / 1048576.0,
+                options.warmup());
+        out.printf(Locale.ROOT, "%6s %-7s %8s %6s %12s %12s %10s %10s %9s %9s %7s%n", "n", "model", "corners", "free",
+                "frontier ms", "both ms", "minvar ms", "worst", "peak MB", "kept MB", "target");
         for (int n : options.sizesOr(SIZES)) {
             for (String model : List.of("bench", "market")) {
                 row(n, model, options, settings, out);
@@ -65,7 +66,10 @@ final class CriticalLineCase implements BenchCase {
                 + "positively; the long-only frontier holds few assets). corners: efficient corner portfolios; free: "
                 + "largest free set; frontier ms: the efficient corner frontier; both ms: with the inefficient "
                 + "branch; minvar ms: one bounded minimum-variance solve; worst: largest certificate residual over "
-                + "all corners; peak MB: heap during the frontier runs (all pools, an upper bound).");
+                + "all corners; peak MB: heap during the frontier runs (sum of the heap pools' peaks, garbage included: an "
+                + "upper bound, and mostly a measure of how much room the collector was given); kept MB: live heap "
+                + "after a full collection with one frontier of both branches held, less the live heap before it "
+                + "was built (its retained size). For a hard limit run with BENCH_JAVA_OPTS=-Xmx2g.");
     }
 
     private static void row(int n, String model, Options options, SolverSettings settings, PrintStream out)
@@ -74,6 +78,7 @@ final class CriticalLineCase implements BenchCase {
                 : FactorModels.universe(n, FactorModels.DEFAULT_SEED);
         Mandate m = FactorModels.longOnlyCapped(n);
         int reps = options.repsOr(n >= 1000 ? 5 : 11);
+        long before = Timing.liveHeap();
         Frontier both = Frontiers.mandate(u, m, Grid.none(), true, settings);
         double worst = 0;
         int free = 0;
@@ -98,9 +103,11 @@ final class CriticalLineCase implements BenchCase {
             return s.variance();
         });
         long peak = Math.max(frontier.peakHeapBytes(), branches.peakHeapBytes());
-        out.printf(Locale.ROOT, "%6d %-7s %8d %6d %12.1f %12.1f %10.1f %10.1e %9.0f %7s%n", n, model,
+        long kept = Timing.liveHeap() - before;
+        java.lang.ref.Reference.reachabilityFence(both);
+        out.printf(Locale.ROOT, "%6d %-7s %8d %6d %12.1f %12.1f %10.1f %10.1e %9.0f %9.0f %7s%n", n, model,
                 both.corners().size(), free, 1e3 * frontier.medianSeconds(), 1e3 * branches.medianSeconds(),
-                1e3 * minvar.medianSeconds(), worst, peak / 1048576.0,
+                1e3 * minvar.medianSeconds(), worst, peak / 1048576.0, kept / 1048576.0,
                 verdict(n, frontier.medianSeconds(), peak, worst));
     }
 

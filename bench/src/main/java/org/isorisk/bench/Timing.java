@@ -66,6 +66,21 @@ public final class Timing {
         return n % 2 == 1 ? t[n / 2] : 0.5 * (t[n / 2 - 1] + t[n / 2]);
     }
 
+    /**
+     * Heap in use after full collections ({@link System#gc()} three times, the least use seen): what is still
+     * referenced by the caller plus the JVM's own, so the difference of two calls around building something that
+     * the caller keeps is that thing's retained size. A figure of live data, unlike {@link Result#peakHeapBytes()},
+     * which also counts garbage not yet collected.
+     */
+    public static long liveHeap() {
+        long least = Long.MAX_VALUE;
+        for (int i = 0; i < 3; i++) {
+            System.gc();
+            least = Math.min(least, ManagementFactory.getMemoryMXBean().getHeapMemoryUsage().getUsed());
+        }
+        return least;
+    }
+
     private static void resetPeaks() {
         for (MemoryPoolMXBean p : ManagementFactory.getMemoryPoolMXBeans()) {
             if (p.getType() == MemoryType.HEAP) {

@@ -12,7 +12,8 @@ import java.util.Optional;
  * @param expectedReturn {@code μ'w}, decimal, annualised
  * @param variance       {@code w'Σw}
  * @param volatility     {@code sqrt(w'Σw)}
- * @param multipliers    one entry per constraint of the problem, in the project's sign convention
+ * @param multipliers    one entry per constraint of the problem, in the project's sign convention (copied,
+ *                       unless it is a {@link CompactMultipliers}, which is immutable and kept as it is)
  * @param certificate    KKT residuals and conditioning
  * @param notes          plain-language remarks for the reader (e.g. "short positions allowed")
  */
@@ -22,7 +23,8 @@ public record Solution(Method method, List<String> assets, double[] weights, dou
     public Solution {
         assets = List.copyOf(assets);
         weights = weights.clone();
-        multipliers = List.copyOf(multipliers);
+        // A compact list is already immutable: kept as it is (copying it would make one record per entry).
+        multipliers = multipliers instanceof CompactMultipliers ? multipliers : List.copyOf(multipliers);
         notes = List.copyOf(notes);
         if (weights.length != assets.size()) {
             throw new IllegalArgumentException("one weight per asset");
@@ -41,6 +43,9 @@ public record Solution(Method method, List<String> assets, double[] weights, dou
 
     /** The multiplier of the named constraint, if the problem had it. */
     public Optional<Multiplier> multiplier(String constraint) {
+        if (multipliers instanceof CompactMultipliers c) {
+            return c.named(constraint);
+        }
         return multipliers.stream().filter(m -> m.constraint().equals(constraint)).findFirst();
     }
 

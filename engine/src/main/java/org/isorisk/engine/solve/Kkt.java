@@ -47,6 +47,20 @@ public final class Kkt {
     static Certificate certifyProduct(double[] sigmaW, double[] w, List<LinearConstraint> rows, double[] rowPrices,
                                       double[] lower, double[] upper, double[] lowerPrices, double[] upperPrices,
                                       double condition, double threshold, boolean convex) {
+        return certifyProduct(sigmaW, w, rows, null, rowPrices, lower, upper, lowerPrices, upperPrices, condition,
+                threshold, convex);
+    }
+
+    /**
+     * The same certificate with the rows' limits given apart: {@code limits[k]} stands for the limit of row k, so
+     * that a caller certifying many points against rows that differ only in their limit (the return target of
+     * each corner of a frontier) builds the rows once.
+     *
+     * @param limits the limit of each row, or null for the rows' own limits (not modified)
+     */
+    static Certificate certifyProduct(double[] sigmaW, double[] w, List<LinearConstraint> rows, double[] limits,
+                                      double[] rowPrices, double[] lower, double[] upper, double[] lowerPrices,
+                                      double[] upperPrices, double condition, double threshold, boolean convex) {
         int n = w.length;
         double[] grad = new double[n];
         for (int i = 0; i < n; i++) {
@@ -68,8 +82,14 @@ public final class Kkt {
                 residual[i] -= t;
                 scale[i] += Math.abs(t);
             }
-            primal = Math.max(primal, c.violation(w) / Math.max(1, Math.abs(c.limit())));
-            double slack = c.evaluate(w) - c.limit();
+            double limit = limits == null ? c.limit() : limits[k];
+            double slack = c.evaluate(w) - limit;
+            double violation = switch (c.relation()) {
+                case EQUAL -> Math.abs(slack);
+                case AT_MOST -> Math.max(0, slack);
+                case AT_LEAST -> Math.max(0, -slack);
+            };
+            primal = Math.max(primal, violation / Math.max(1, Math.abs(limit)));
             if (c.relation() == Relation.AT_MOST) {
                 dual = Math.max(dual, Math.max(0, s));
                 comp = Math.max(comp, Math.abs(s * slack));

@@ -11,13 +11,13 @@ import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Certificate;
+import org.isorisk.engine.model.CompactMultipliers;
 import org.isorisk.engine.model.Corner;
 import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.LinearConstraint;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.MertonScalars;
 import org.isorisk.engine.model.Method;
-import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Relation;
 import org.isorisk.engine.model.RejectedTarget;
 import org.isorisk.engine.model.Solution;
@@ -48,6 +48,23 @@ final class MandateSweep {
     private final double[] negMu;
     private final boolean[] bookFixed;
     private final List<LinearConstraint> rows;
+    /** {@link #rows} and the return-target row ({@code μ'w = limit}, the limit given per solution). */
+    private final List<LinearConstraint> rowsWithTarget;
+    /** The limits of {@link #rows}, then a slot for the return target. */
+    private final double[] limits;
+    /**
+     * The multipliers' names, built once per sweep and shared by every solution's {@link CompactMultipliers}:
+     * budget, the fixed weights, the return target (in the second table only), then each asset's finite lower
+     * and upper bound.
+     */
+    private final CompactMultipliers.Names names;
+    private final CompactMultipliers.Names namesWithTarget;
+    /** Position of asset i's lower (upper) bound multiplier among the bound entries, or -1 without that bound. */
+    private final int[] lowerAt;
+    private final int[] upperAt;
+    /** The mandate's bounds, read once (not modified). */
+    private final double[] lowerBounds;
+    private final double[] upperBounds;
     private final int n;
     private List<CriticalLine.Point> efficient;
     private boolean efficientComplete;
@@ -68,7 +85,44 @@ final class MandateSweep {
             negMu[i] = -mu[i];
         }
         this.bookFixed = bookFixed;
-        this.rows = mandate.rows(u.assets());
+        this.rows = List.copyOf(mandate.rows(u.assets()));
+        List<LinearConstraint> withTarget = new ArrayList<>(rows);
+        withTarget.add(new LinearConstraint("target_return", mu, Relation.EQUAL, 0));
+        this.rowsWithTarget = List.copyOf(withTarget);
+        this.limits = new double[rows.size() + 1];
+        for (int k = 0; k < rows.size(); k++) {
+            limits[k] = rows.get(k).limit();
+        }
+        List<String> head = new ArrayList<>();
+        head.add("budget");
+        for (Integer i : mandate.fixed().keySet()) {
+            head.add("fixed:" + u.assets().get(i));
+        }
+        List<String> bounds = new ArrayList<>();
+        this.lowerAt = new int[n];
+        this.upperAt = new int[n];
+        this.lowerBounds = mandate.lower();
+        this.upperBounds = mandate.upper();
+        double[] lower = lowerBounds;
+        double[] upper = upperBounds;
+        for (int i = 0; i < n; i++) {
+            String a = u.assets().get(i);
+            lowerAt[i] = Double.isFinite(lower[i]) ? bounds.size() : -1;
+            if (lowerAt[i] >= 0) {
+                bounds.add("lower:" + a);
+            }
+            upperAt[i] = Double.isFinite(upper[i]) ? bounds.size() : -1;
+            if (upperAt[i] >= 0) {
+                bounds.add("upper:" + a);
+            }
+        }
+        List<String> all = new ArrayList<>(head);
+        all.addAll(bounds);
+        this.names = new CompactMultipliers.Names(all);
+        all = new ArrayList<>(head);
+        all.add("target_return");
+        all.addAll(bounds);
+        this.namesWithTarget = new CompactMultipliers.Names(all);
     }
 
     /** Why the critical line method cannot take a mandate, or null when it can. */
@@ -586,28 +640,36 @@ final class MandateSweep {
             }
         }
         double tau = sign * lambda;
-        List<LinearConstraint> allRows = new ArrayList<>(rows);
-        double[] rowPrices = new double[rows.size() + (target == null ? 0 : 1)];
-        List<Multiplier> mult = new ArrayList<>();
+        boolean withTarget = target != null;
+        CompactMultipliers.Names table = withTarget ? namesWithTarget : names;
+        double[] prices = new double[table.size()];
+        boolean[] binding = new boolean[table.size()];
+        double[] rowPrices = new double[rows.size() + (withTarget ? 1 : 0)];
+        double[] rowLimits = limits.clone();
         rowPrices[0] = nu;
-        mult.add(multiplier("budget", nu, vol, true));
+        prices[0] = nu;
+        binding[0] = true;
         int k = 1;
         for (Integer i : mandate.fixed().keySet()) {
-            rowPrices[k++] = gamma[i];
-            mult.add(multiplier("fixed:" + u.assets().get(i), gamma[i], vol, true));
+            rowPrices[k] = gamma[i];
+            prices[k] = gamma[i];
+            binding[k] = true;
+            k++;
         }
-        if (target != null) {
-            allRows.add(new LinearConstraint("target_return", mu, Relation.EQUAL, target));
+        if (withTarget) {
+            rowLimits[k] = target;
             rowPrices[k] = tau;
-            mult.add(multiplier("target_return", tau, vol, true));
+            prices[k] = tau;
+            binding[k] = true;
+            k++;
         }
-        double[] lower = mandate.lower();
-        double[] upper = mandate.upper();
+        int at = k;
+        double[] lower = lowerBounds;
+        double[] upper = upperBounds;
         double[] lp = new double[n];
         double[] up = new double[n];
         double atTol = 1e-12 * Math.max(1, Math.abs(mandate.budget()));
         for (int i = 0; i < n; i++) {
-            String a = u.assets().get(i);
             boolean out = st[i] != CriticalLine.FREE && !bookFixed[i];
             if (out) {
                 boolean lowSide = st[i] == CriticalLine.LOWER
@@ -618,24 +680,22 @@ final class MandateSweep {
                     up[i] = gamma[i];
                 }
             }
-            if (Double.isFinite(lower[i])) {
-                boolean at = Math.abs(x[i] - lower[i]) <= atTol;
-                mult.add(multiplier("lower:" + a, lp[i], vol, at));
+            if (lowerAt[i] >= 0) {
+                prices[at + lowerAt[i]] = lp[i];
+                binding[at + lowerAt[i]] = Math.abs(x[i] - lower[i]) <= atTol;
             }
-            if (Double.isFinite(upper[i])) {
-                boolean at = Math.abs(x[i] - upper[i]) <= atTol;
-                mult.add(multiplier("upper:" + a, up[i], vol, at));
+            if (upperAt[i] >= 0) {
+                prices[at + upperAt[i]] = up[i];
+                binding[at + upperAt[i]] = Math.abs(x[i] - upper[i]) <= atTol;
             }
         }
-        Certificate cert = Kkt.certifyProduct(sx, x, allRows, rowPrices, lower, upper, lp, up,
-                condition, settings.numericalTolerance(), true);
-        List<String> all = new ArrayList<>(notes);
+        Certificate cert = Kkt.certifyProduct(sx, x, withTarget ? rowsWithTarget : rows, rowLimits, rowPrices, lower,
+                upper, lp, up, condition, settings.numericalTolerance(), true);
+        List<String> all = new ArrayList<>(notes.size() + 1);
+        all.addAll(notes);
         all.add(CONVEX_NOTE);
-        return new Solution(Method.CRITICAL_LINE, u.assets(), x, ret, var, vol, mult, cert, all);
-    }
-
-    private static Multiplier multiplier(String name, double price, double vol, boolean binding) {
-        return new Multiplier(name, price, vol > 0 ? price / (2 * vol) : Double.NaN, binding);
+        return new Solution(Method.CRITICAL_LINE, u.assets(), x, ret, var, vol,
+                new CompactMultipliers(table, prices, binding, vol), cert, all);
     }
 
     /**
@@ -736,12 +796,20 @@ final class MandateSweep {
     }
 
     /** Corners whose Σw are computed together: each row of Σ is read once per block instead of once per corner. */
-    private static final int PRODUCT_BLOCK = 16;
+    private static final int PRODUCT_BLOCK = 32;
+
+    /**
+     * Entries of the block's Σw computed together: {@code PRODUCT_BLOCK · PRODUCT_TILE} doubles (128 kB) stay in
+     * the processor's second-level cache while the rows of Σ stream past.
+     */
+    private static final int PRODUCT_TILE = 512;
 
     /**
      * {@code Σw} of every point, computed afresh from its weights, {@link #PRODUCT_BLOCK} points at a time: for
-     * each row j of Σ (its column j, Σ being symmetric) the block's {@code y += w_j·row_j}, so a frontier with
-     * thousands of corners streams Σ a few hundred times, not thousands.
+     * each row q of Σ (its column q, Σ being symmetric) the block's {@code y += w_q·row_q}, so a frontier with
+     * thousands of corners streams Σ a few dozen times, not thousands; the entries are done
+     * {@link #PRODUCT_TILE} at a time so that the block's partial sums stay in cache. Each entry
+     * {@code y_i = Σ_q σ_qi w_q} is summed in increasing q, the same order as a plain product row by row.
      */
     private double[][] products(List<CriticalLine.Point> pts) {
         int k = pts.size();
@@ -750,29 +818,70 @@ final class MandateSweep {
         forEach(blocks, b -> {
             int j0 = b * PRODUCT_BLOCK;
             int j1 = Math.min(k, j0 + PRODUCT_BLOCK);
-            double[][] ws = new double[j1 - j0][];
-            double[][] ys = new double[j1 - j0][n];
-            for (int j = j0; j < j1; j++) {
-                ws[j - j0] = pts.get(j).weights();
+            int m = j1 - j0;
+            double[][] ws = new double[m][];
+            double[][] ys = new double[m][n];
+            for (int j = 0; j < m; j++) {
+                ws[j] = pts.get(j0 + j).weights();
             }
-            for (int q = 0; q < n; q++) {
-                double[] row = sigma[q];
-                for (int j = 0; j < ws.length; j++) {
-                    double wq = ws[j][q];
-                    if (wq == 0) {
-                        continue;
+            for (int i0 = 0; i0 < n; i0 += PRODUCT_TILE) {
+                int i1 = Math.min(n, i0 + PRODUCT_TILE);
+                int q = 0;
+                // Four rows at a time: one load and store of y per four products. The sum keeps its order,
+                // ((y + r0·w0) + r1·w1) + ..., so the result is the same to the last bit.
+                for (; q + 3 < n; q += 4) {
+                    double[] r0 = sigma[q];
+                    double[] r1 = sigma[q + 1];
+                    double[] r2 = sigma[q + 2];
+                    double[] r3 = sigma[q + 3];
+                    for (int j = 0; j < m; j++) {
+                        double[] wj = ws[j];
+                        double w0 = wj[q];
+                        double w1 = wj[q + 1];
+                        double w2 = wj[q + 2];
+                        double w3 = wj[q + 3];
+                        double[] y = ys[j];
+                        if (w0 != 0 && w1 != 0 && w2 != 0 && w3 != 0) {
+                            for (int i = i0; i < i1; i++) {
+                                y[i] = y[i] + r0[i] * w0 + r1[i] * w1 + r2[i] * w2 + r3[i] * w3;
+                            }
+                            continue;
+                        }
+                        axpy(y, r0, w0, i0, i1);
+                        axpy(y, r1, w1, i0, i1);
+                        axpy(y, r2, w2, i0, i1);
+                        axpy(y, r3, w3, i0, i1);
                     }
-                    double[] y = ys[j];
-                    for (int i = 0; i < n; i++) {
-                        y[i] += row[i] * wq;
+                }
+                for (; q < n; q++) {
+                    double[] row = sigma[q];
+                    for (int j = 0; j < m; j++) {
+                        double wq = ws[j][q];
+                        if (wq == 0) {
+                            continue;
+                        }
+                        double[] y = ys[j];
+                        for (int i = i0; i < i1; i++) {
+                            y[i] += row[i] * wq;
+                        }
                     }
                 }
             }
-            for (int j = j0; j < j1; j++) {
-                out[j] = ys[j - j0];
+            for (int j = 0; j < m; j++) {
+                out[j0 + j] = ys[j];
             }
         });
         return out;
+    }
+
+    /** {@code y[i] += row[i]·a} for i in [i0, i1); nothing when a is zero (a held asset only). */
+    private static void axpy(double[] y, double[] row, double a, int i0, int i1) {
+        if (a == 0) {
+            return;
+        }
+        for (int i = i0; i < i1; i++) {
+            y[i] += row[i] * a;
+        }
     }
 
     private Corner corner(CriticalLine.Point p, boolean first, boolean last, double[] dir, double sign, boolean ineff,
@@ -805,7 +914,7 @@ final class MandateSweep {
         for (CriticalLine.Event e : p.events()) {
             assetNames.add(u.assets().get(e.asset()));
         }
-        List<String> free = new ArrayList<>();
+        List<String> free = new ArrayList<>(n);
         for (int i = 0; i < n; i++) {
             if (p.state()[i] == CriticalLine.FREE) {
                 free.add(u.assets().get(i));

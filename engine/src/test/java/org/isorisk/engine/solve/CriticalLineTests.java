@@ -389,6 +389,65 @@ class CriticalLineTests {
     }
 
     @Test
+    void everyCornerListsItsMultipliersInContractOrderWithTheStationarityPricesOfItsBounds() {
+        // Stationarity of the KKT conditions (Nocedal and Wright, "Numerical Optimization", 2006, Theorem 12.1)
+        // in the project's convention: 2(Σw)_i = ν + τμ_i + γ_i, with γ_i the price of asset i's binding bound
+        // (or its fixed weight) and 0 for an asset strictly between its bounds; recomputed here from Σ and w.
+        int n = 9;
+        AssetUniverse u = FactorModels.universe(n, 17);
+        double[] lo = new double[n];
+        double[] hi = new double[n];
+        Arrays.fill(hi, 0.3);
+        Map<Integer, Double> fixed = new java.util.LinkedHashMap<>();
+        fixed.put(4, 0.1);
+        fixed.put(0, 0.05);
+        Mandate m = new Mandate(1.0, lo, hi, fixed, List.of(), List.of());
+        List<String> expectedNames = new ArrayList<>(List.of("budget", "fixed:" + u.assets().get(4),
+                "fixed:" + u.assets().get(0), "target_return"));
+        for (String a : u.assets()) {
+            expectedNames.add("lower:" + a);
+            expectedNames.add("upper:" + a);
+        }
+        Frontier fr = frontier(u, m);
+        double[] mu = u.expectedReturns();
+        for (Corner c : fr.corners()) {
+            Solution s = c.portfolio();
+            List<Multiplier> ms = s.multipliers();
+            assertEquals(expectedNames, ms.stream().map(Multiplier::constraint).toList());
+            assertEquals(List.copyOf(ms), ms);
+            assertThrows(UnsupportedOperationException.class, () -> ms.add(ms.get(0)));
+            assertEquals(ms.stream().filter(Multiplier::binding).toList(), s.binding());
+            double nu = price(s, "budget");
+            double tau = price(s, "target_return");
+            for (int i = 0; i < n; i++) {
+                double g = 0;
+                for (int j = 0; j < n; j++) {
+                    g += 2 * u.covariance(i, j) * s.weight(j);
+                }
+                double gamma = g - nu - tau * mu[i];
+                String a = u.assets().get(i);
+                Multiplier low = s.multiplier("lower:" + a).orElseThrow();
+                Multiplier up = s.multiplier("upper:" + a).orElseThrow();
+                assertEquals(Math.abs(s.weight(i)) <= Tolerances.TIGHT, low.binding(), a);
+                assertEquals(Math.abs(s.weight(i) - 0.3) <= Tolerances.TIGHT, up.binding(), a);
+                if (fixed.containsKey(i)) {
+                    assertEquals(gamma, price(s, "fixed:" + a), Tolerances.GENERAL, a);
+                    assertEquals(0.0, low.variancePerUnit(), 0.0, a);
+                    assertEquals(0.0, up.variancePerUnit(), 0.0, a);
+                } else {
+                    assertEquals(gamma, low.variancePerUnit() + up.variancePerUnit(), Tolerances.GENERAL, a);
+                }
+                assertEquals(low.variancePerUnit() / (2 * s.volatility()), low.volatilityPerUnit(), 0.0, a);
+            }
+        }
+        Solution mv = minimumVariance(u, m);
+        assertTrue(mv.multiplier("target_return").isEmpty());
+        List<String> noTarget = new ArrayList<>(expectedNames);
+        noTarget.remove("target_return");
+        assertEquals(noTarget, mv.multipliers().stream().map(Multiplier::constraint).toList());
+    }
+
+    @Test
     void fixedWeightsStayFixedAndCarryTheirOwnShadowPrice() {
         AssetUniverse u = FactorModels.universe(9, 17);
         double[] lo = new double[9];
