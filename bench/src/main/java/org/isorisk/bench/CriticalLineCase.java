@@ -61,9 +61,9 @@ final class CriticalLineCase implements BenchCase {
                 row(n, model, options, settings, out);
             }
         }
-        out.println("model bench: FactorModels.signedUniverse (loadings of either sign; near the minimum-variance end nearly every "
-                + "asset is held); model market: FactorModels.universe (a market factor every asset loads on "
-                + "positively; the long-only frontier holds few assets). corners: efficient corner portfolios; free: "
+        out.println("model bench: FactorModels.signedUniverse (loadings of either sign; near the minimum-variance "
+                + "end nearly every asset is held); model market: FactorModels.universe (a market factor every asset "
+                + "loads on positively; the long-only frontier holds few assets). corners: efficient corner portfolios; free: "
                 + "largest free set; frontier ms: the efficient corner frontier; both ms: with the inefficient "
                 + "branch; minvar ms: one bounded minimum-variance solve; worst: largest certificate residual over "
                 + "all corners; peak MB: heap during the frontier runs (sum of the heap pools' peaks, garbage included: an "
