@@ -353,6 +353,9 @@ public final class NotebookWriter {
                 : "The full move to the proposal, measured against today's holdings.");
         markdown("trades", lines);
         table(t.comparison());
+        if (!t.reading().isBlank()) {
+            markdown("trades-reading", Text.markdown(t.reading()));
+        }
         if (content.trades().isPresent()) {
             markdown("trades-list", "The trade list in " + currency + ": positive amounts are purchases, negative "
                     + "amounts sales.");

@@ -307,14 +307,17 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
      * @param comparison today's holdings, the full move and (when it exists) the move within the limits side by
      *                   side: expected return before and after costs, volatility, turnover, cost, tracking error
      *                   against today
+     * @param reading    what the comparison says in one plain sentence: whether a trading limit binds or the costs
+     *                   alone make the difference (empty when there is no move within the limits)
      * @param breaches   limits of the policy today's holdings break, with the trades that cure them, in sentences
      * @param sentences  the engine's readings of the turnover limit's shadow price and of every other binding limit
      *                   of the move within the limits
      * @param notes      how turnover and costs are counted, the move's KKT certificate, the rebalancer's message
      */
-    public record Trading(Mode mode, String headline, List<String> limits, Table comparison, List<String> breaches,
-                          List<String> sentences, List<String> notes) {
+    public record Trading(Mode mode, String headline, List<String> limits, Table comparison, String reading,
+                          List<String> breaches, List<String> sentences, List<String> notes) {
         public Trading {
+            reading = reading == null ? "" : reading;
             Objects.requireNonNull(mode, "mode");
             Objects.requireNonNull(headline, "headline");
             Objects.requireNonNull(comparison, "comparison");

@@ -403,7 +403,13 @@ public final class PackRunner {
             if (res.rebalance().isPresent()) {
                 RebalanceResult rb = res.rebalance().get();
                 trades = Optional.of(trades(rb, spec));
-                runNotes.addAll(rb.notes());
+                for (String note : rb.notes()) {
+                    // the conventions are printed in the Trades section itself
+                    if (!note.equals(RebalanceResult.TURNOVER_CONVENTION)
+                            && !note.equals(RebalanceResult.COST_CONVENTION)) {
+                        runNotes.add("Trades within the trading limits: " + note);
+                    }
+                }
                 if (!rb.proposal().certificate().passes()) {
                     runNotes.add("Trades within the trading limits: the KKT certificate is above its tolerance ("
                             + certificateLine(rb.proposal().certificate()) + "); treat the trade list with caution.");
@@ -512,8 +518,8 @@ public final class PackRunner {
                     ? "The proposal's target " + target + " cannot be reached within the policy's trading limits, "
                     + "so the pack proposes no trade list: "
                     : "No trade list within the policy's trading limits was found, so the pack proposes none: ")
-                    + e.getMessage() + ". The full move to the proposal would need turnover "
-                    + Explain.percent(fullTurnover) + ".";
+                    + e.getMessage() + " (here the target is the pack file's proposed target). The full move to the "
+                    + "proposal would need turnover " + Explain.percent(fullTurnover) + ".";
         }
 
         Table.Builder cmp = Table.builder("trade_summary", mode == PackContent.Trading.Mode.WITHIN_LIMITS
@@ -531,6 +537,29 @@ public final class PackRunner {
         rb.ifPresent(x -> cmp.row("Within the trading limits", x.proposedReturn(), x.proposedNetReturn(),
                 x.proposedVolatility(), x.turnover(), x.cost(), x.trackingError()));
 
+        String reading = "";
+        if (rb.isPresent()) {
+            RebalanceResult x = rb.get();
+            boolean binds = x.binding().stream().map(Multiplier::constraint).anyMatch(c -> c.equals("turnover")
+                    || c.startsWith("trade_limit:") || c.startsWith("no_trade:") || c.startsWith("min_trade:"));
+            double fullNet = p.expectedReturn() - fullCost;
+            if (binds) {
+                reading = "The trading limits bind: keeping to them" + (lim.hasCosts() ? " and paying the costs" : "")
+                        + " moves the volatility from " + Explain.percent(p.volatility()) + " (the full move) to "
+                        + Explain.percent(x.proposedVolatility()) + "; what each binding limit costs at the margin "
+                        + "is below.";
+            } else if (lim.hasCosts() && fullNet < r.spec().proposed()) {
+                reading = "No trading limit binds here: the move differs from the full move because trading costs "
+                        + "are deducted from the return the target must reach; the full move would return "
+                        + Explain.percent(fullNet) + " after costs, short of the " + target + " target.";
+            } else if (lim.hasCosts()) {
+                reading = "No trading limit binds here: the move differs from the full move only through the trading "
+                        + "costs.";
+            } else {
+                reading = "No trading limit binds here, so the move within the limits is the full move (to the "
+                        + "solver's tolerance).";
+            }
+        }
         List<String> tradingNotes = new ArrayList<>();
         tradingNotes.add(RebalanceResult.TURNOVER_CONVENTION);
         if (lim.hasCosts()) {
@@ -541,7 +570,7 @@ public final class PackRunner {
         }
         rb.ifPresent(x -> tradingNotes.add("The move within the limits: " + certificateLine(x.proposal().certificate())
                 + " (the KKT certificate of the rebalance problem)."));
-        return new PackContent.Trading(mode, headline, limitWords(lim, u.assets()), cmp.build(),
+        return new PackContent.Trading(mode, headline, limitWords(lim, u.assets()), cmp.build(), reading,
                 rb.map(x -> x.breaches().stream().map(Breach::description).toList()).orElse(List.of()),
                 rb.map(RebalanceResult::sentences).orElse(List.of()), tradingNotes);
     }

@@ -1,6 +1,7 @@
 package org.isorisk.notebooks.pack;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -76,7 +77,8 @@ class PackEndToEndTests {
         assertTrue(text.contains("**Trades:** " + Text.markdown(t.headline())), "the summary says which trade list");
         assertTrue(text.contains(Text.markdown(t.sentences().get(0))), "the turnover limit's shadow price");
         assertTrue(text.contains(Text.markdown(Caution.SHORT)), "the caution beside the trades");
-        assertTrue(!text.contains("fully to the proposal"), "no claim that the trades are the full move");
+        assertFalse(text.contains("moves the current holdings fully to the proposal"),
+                "the old claim that the trades are always the full move is gone");
         // each CSV table holds the content's numbers at full precision, and the manifest hashes the file
         JsonNode m = new ObjectMapper().readTree(folder.resolve(PackLayout.MANIFEST).toFile());
         for (String name : List.of("trades", "trade_summary")) {
@@ -114,7 +116,7 @@ class PackEndToEndTests {
         assertEquals(List.of("assumptions", "portfolios", "weights", "risk", "trade_summary", "correlation",
                 "frontier", "constraints"), tableCells(nb));
         assertTrue(markdown(nb).contains(Text.markdown(o.content().trading().orElseThrow().headline())));
-        assertTrue(!Files.exists(folder.resolve(PackLayout.table("trades"))), "no trade list is proposed");
+        assertFalse(Files.exists(folder.resolve(PackLayout.table("trades"))), "no trade list is proposed");
     }
 
     @Test

@@ -233,6 +233,31 @@ class PackRunnerTests {
                 t.sentences().get(0));
         assertTrue(t.limits().contains("Turnover (two-way: buys plus sells) at most 70.00 % of the fund."), t.limits().toString());
         assertTrue(t.headline().contains("(limit 70.00 %)"), t.headline());
+        assertTrue(t.reading().startsWith("The trading limits bind: keeping to them and paying the costs moves the "
+                + "volatility from " + Explain.percent(number(cmp, 1, "volatility")) + " (the full move) to "
+                + Explain.percent(direct.proposedVolatility())), t.reading());
+    }
+
+    @Test
+    void aTurnoverLimitThatDoesNotBindIsReadAsSuchAndTheCostsMakeTheDifference() {
+        // a limit far above any move: the rebalancer's answer is the least-risk portfolio for the target after costs
+        PackRunner.Outcome o = PackRunner.run(limited(longOnly(), turnover(1.9)));
+        PackContent.Trading t = o.content().trading().orElseThrow();
+        assertEquals(PackContent.Trading.Mode.WITHIN_LIMITS, t.mode());
+        assertTrue(t.sentences().get(0).startsWith("The turnover limit 190.00 % is not binding"), t.sentences().get(0));
+        double fullNet = number(t.comparison(), 1, "return_after_costs");
+        assertTrue(fullNet < 0.05, "the full move pays costs out of the target's return");
+        assertEquals("No trading limit binds here: the move differs from the full move because trading costs are "
+                + "deducted from the return the target must reach; the full move would return "
+                + Explain.percent(fullNet) + " after costs, short of the 5.00 % target.", t.reading());
+        // the same limit without costs: the move within the limits is the full move
+        PackRunner.Outcome free = PackRunner.run(limited(longOnly(), TradingLimits.none(3).withMaxTurnover(1.9)));
+        double[] full = free.results().proposal().weights();
+        double[] moved = free.results().rebalance().orElseThrow().proposal().weights();
+        for (int i = 0; i < 3; i++) {
+            assertEquals(full[i], moved[i], SolverSettings.defaults().numericalTolerance());
+        }
+        assertTrue(free.content().trading().orElseThrow().reading().startsWith("No trading limit binds here, so"));
     }
 
     @Test
