@@ -16,7 +16,9 @@ import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
+import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
 
 /**
@@ -79,7 +81,9 @@ public final class NotebookWriter {
         if (!content.stress().isEmpty() || !content.charts(PackContent.ChartKind.STRESS).isEmpty()) {
             stress();
         }
-        content.trades().ifPresent(this::trades);
+        if (content.trades().isPresent() || content.trading().isPresent()) {
+            trades();
+        }
         appendix();
         runRecord();
         workingNote();
@@ -152,8 +156,10 @@ public final class NotebookWriter {
         lines.add("- **Certificates:** " + (allPass
                 ? "every portfolio satisfies its optimality (KKT) conditions within tolerance."
                 : "**at least one portfolio's KKT certificate is above its tolerance: read the run record.**"));
-        if (content.trades().isPresent()) {
-            lines.add("- **Rebalancing:** a trade list from the current holdings is in the Trades section.");
+        if (content.trading().isPresent()) {
+            lines.add("- **Trades:** " + Text.markdown(content.trading().get().headline()) + " See the Trades section.");
+        } else if (content.trades().isPresent()) {
+            lines.add("- **Trades:** a trade list from the current holdings is in the Trades section.");
         }
         markdown("summary", lines);
     }
@@ -303,12 +309,74 @@ public final class NotebookWriter {
         charts(PackContent.ChartKind.STRESS);
     }
 
-    private void trades(Table t) {
-        markdown("trades", "## Trades", "",
-                "What moves the current holdings fully to the proposal, in "
-                        + Text.markdown(content.heading().currency()) + ". Positive amounts are purchases, negative "
-                        + "amounts sales. The run record says whether the policy limits turnover.");
-        table(t);
+    /**
+     * The trades: which trade list it is (the full move, or the move within the policy's trading limits), the
+     * limits, the limits today's holdings break, the full move beside the limited one, the trade list, what the
+     * limits cost (shadow prices), the conventions, and the caution.
+     */
+    private void trades() {
+        String currency = Text.markdown(content.heading().currency());
+        List<String> lines = new ArrayList<>();
+        lines.add("## Trades");
+        lines.add("");
+        Optional<PackContent.Trading> trading = content.trading();
+        if (trading.isEmpty()) {
+            lines.add("The trades from the current holdings, in " + currency + ". Positive amounts are purchases, "
+                    + "negative amounts sales.");
+            markdown("trades", lines);
+            content.trades().ifPresent(this::table);
+            markdown("trades-caution", "*" + Text.markdown(Caution.SHORT) + "*");
+            return;
+        }
+        PackContent.Trading t = trading.get();
+        lines.add("**" + Text.markdown(t.headline()) + "**");
+        if (!t.limits().isEmpty()) {
+            lines.add("");
+            lines.add("Trading limits of the policy:");
+            lines.add("");
+            for (String l : t.limits()) {
+                lines.add("- " + Text.markdown(l));
+            }
+        }
+        if (!t.breaches().isEmpty()) {
+            lines.add("");
+            lines.add("Today's holdings break the policy; the trades below cure it:");
+            lines.add("");
+            for (String b : t.breaches()) {
+                lines.add("- " + Text.markdown(b));
+            }
+        }
+        lines.add("");
+        lines.add(t.mode() == PackContent.Trading.Mode.WITHIN_LIMITS
+                ? "What keeping to the limits (and paying the trading costs) changes: the full move to the proposal "
+                + "beside the move within the limits, both measured against today's holdings."
+                : "The full move to the proposal, measured against today's holdings.");
+        markdown("trades", lines);
+        table(t.comparison());
+        if (!t.reading().isBlank()) {
+            markdown("trades-reading", Text.markdown(t.reading()));
+        }
+        if (content.trades().isPresent()) {
+            markdown("trades-list", "The trade list in " + currency + ": positive amounts are purchases, negative "
+                    + "amounts sales.");
+            table(content.trades().get());
+        }
+        List<String> after = new ArrayList<>();
+        if (!t.sentences().isEmpty()) {
+            after.add("What each limit costs at the margin: the shadow prices of the move within the limits, read for a "
+                    + "small step (first-order estimates):");
+            after.add("");
+            for (String x : t.sentences()) {
+                after.add("- " + Text.markdown(x));
+            }
+            after.add("");
+        }
+        for (String n : t.notes()) {
+            after.add("- " + Text.markdown(n));
+        }
+        after.add("");
+        after.add("*" + Text.markdown(Caution.SHORT) + "*");
+        markdown("trades-notes", after);
     }
 
     private void runRecord() {

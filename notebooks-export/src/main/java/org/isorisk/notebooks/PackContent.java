@@ -21,13 +21,24 @@ import java.util.Optional;
  * @param binding     every binding constraint of every portfolio, with its shadow price in a sentence
  * @param constraints the shadow-price table behind {@code binding} (CSV for the analyst)
  * @param charts      chart images, placed by kind
- * @param trades      the trade list when the pack rebalances current holdings
+ * @param trades      the trade list when the pack has current holdings (absent when the proposal's target is out of
+ *                    reach within the trading limits: see {@code trading})
  * @param stress      stress tables, one per scenario sweep, when scenarios ran
  * @param run         the run record: tool version, inputs and their hashes, parameters, certificates
+ * @param trading     how the trade list was made (the full move, or within the policy's trading limits) and what
+ *                    the limits cost, when the pack has current holdings
  */
 public record PackContent(Heading heading, Assumptions assumptions, List<String> mandate, List<Portfolio> portfolios,
                           Optional<Table> frontier, Table weights, Table risk, List<Binding> binding, Table constraints, List<Chart> charts,
-                          Optional<Table> trades, List<Table> stress, RunRecord run) {
+                          Optional<Table> trades, List<Table> stress, RunRecord run, Optional<Trading> trading) {
+
+    /** A pack without the account of how its trade list was made. */
+    public PackContent(Heading heading, Assumptions assumptions, List<String> mandate, List<Portfolio> portfolios,
+                       Optional<Table> frontier, Table weights, Table risk, List<Binding> binding, Table constraints,
+                       List<Chart> charts, Optional<Table> trades, List<Table> stress, RunRecord run) {
+        this(heading, assumptions, mandate, portfolios, frontier, weights, risk, binding, constraints, charts, trades,
+                stress, run, Optional.empty());
+    }
 
     public PackContent {
         Objects.requireNonNull(heading, "heading");
@@ -49,8 +60,13 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
         charts = List.copyOf(charts);
         trades = trades == null ? Optional.empty() : trades;
         stress = List.copyOf(stress);
+        trading = trading == null ? Optional.empty() : trading;
+        if (trading.isPresent() && (trading.get().mode() == Trading.Mode.OUT_OF_REACH) == trades.isPresent()) {
+            throw new IllegalArgumentException("a trade list goes with every trading account but one whose target is "
+                    + "out of reach");
+        }
         java.util.Set<String> names = new java.util.HashSet<>();
-        for (Table t : tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades)) {
+        for (Table t : tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades, trading)) {
             if (!names.add(t.name())) {
                 throw new IllegalArgumentException("two tables are named " + t.name());
             }
@@ -65,12 +81,12 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
 
     /** Every table of the pack, in notebook order; each is also written as CSV next to the notebook. */
     public List<Table> tables() {
-        return tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades);
+        return tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades, trading);
     }
 
     private static List<Table> tablesOf(Assumptions assumptions, List<Portfolio> portfolios, Table weights,
                                         Optional<Table> frontier, Table risk, Table constraints, List<Table> stress,
-                                        Optional<Table> trades) {
+                                        Optional<Table> trades, Optional<Trading> trading) {
         List<Table> all = new java.util.ArrayList<>();
         all.add(assumptions.table());
         all.add(assumptions.correlation());
@@ -80,6 +96,7 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
         all.add(risk);
         all.add(constraints);
         stress.forEach(all::add);
+        trading.ifPresent(t -> all.add(t.comparison()));
         trades.ifPresent(all::add);
         return all;
     }
@@ -277,6 +294,47 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
             parameters = List.copyOf(parameters);
             inputs = List.copyOf(inputs);
             notes = List.copyOf(notes);
+        }
+    }
+
+    /**
+     * How the pack's trade list was made from the current holdings, and what the policy's trading limits cost.
+     *
+     * @param mode       the full move to the proposal, the limit-respecting move, or a target out of reach within
+     *                   the limits
+     * @param headline   one plain sentence saying which of these the trade list is (summary, terminal)
+     * @param limits     the trading limits in words, one per rule (empty when the policy sets none)
+     * @param comparison today's holdings, the full move and (when it exists) the move within the limits side by
+     *                   side: expected return before and after costs, volatility, turnover, cost, tracking error
+     *                   against today
+     * @param reading    what the comparison says in one plain sentence: whether a trading limit binds or the costs
+     *                   alone make the difference (empty when there is no move within the limits)
+     * @param breaches   limits of the policy today's holdings break, with the trades that cure them, in sentences
+     * @param sentences  the engine's readings of the turnover limit's shadow price and of every other binding limit
+     *                   of the move within the limits
+     * @param notes      how turnover and costs are counted, the move's KKT certificate, the rebalancer's message
+     */
+    public record Trading(Mode mode, String headline, List<String> limits, Table comparison, String reading,
+                          List<String> breaches, List<String> sentences, List<String> notes) {
+        public Trading {
+            reading = reading == null ? "" : reading;
+            Objects.requireNonNull(mode, "mode");
+            Objects.requireNonNull(headline, "headline");
+            Objects.requireNonNull(comparison, "comparison");
+            limits = List.copyOf(limits);
+            breaches = List.copyOf(breaches);
+            sentences = List.copyOf(sentences);
+            notes = List.copyOf(notes);
+        }
+
+        /** Which trade list the pack shows. */
+        public enum Mode {
+            /** No trading limit in the policy: the trades move the holdings fully to the proposal. */
+            FULL_MOVE,
+            /** The trades are the rebalancer's move toward the proposal's target within the trading limits. */
+            WITHIN_LIMITS,
+            /** The proposal's target cannot be reached within the trading limits: no trade list is proposed. */
+            OUT_OF_REACH
         }
     }
 

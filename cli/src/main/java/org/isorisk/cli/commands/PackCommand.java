@@ -24,6 +24,7 @@ import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.io.Units;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Policy;
+import org.isorisk.engine.rebalance.TradingLimits;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.PackLayout;
@@ -49,8 +50,9 @@ import picocli.CommandLine.Option;
         header = "Write a fund's investment committee pack (notebook, charts, tables, manifest) into one folder.",
         description = {"Write the investment committee pack of a fund into one folder: a Jupyter notebook with the "
                 + "assumptions, the mandate in words, the minimum-variance and proposed portfolios, the frontier, the "
-                + "risk of the proposal, every binding constraint with its shadow price, the trades and a run record; "
-                + "the charts, the CSV tables, copies of the inputs and manifest.json (SHA-256 of every file). The "
+                + "risk of the proposal, every binding constraint with its shadow price, the trades (within the policy's "
+                + "trading limits when it sets any: turnover, per-asset trade limits, minimum trade, no-trade list; "
+                + "else the full move) and a run record; the charts, the CSV tables, copies of the inputs and manifest.json (SHA-256 of every file). The "
                 + "folder appears complete or not at all."})
 public final class PackCommand extends BaseCommand {
 
@@ -62,7 +64,8 @@ public final class PackCommand extends BaseCommand {
     PolicyOption policyOption;
 
     @Option(names = "--holdings", paramLabel = "FILE",
-            description = "Current holdings: CSV asset,weight or asset,market_value; adds the trade list.")
+            description = "Current holdings: CSV asset,weight or asset,market_value; adds the trade list (within the "
+                    + "policy's trading limits when it sets any).")
     Path holdings;
 
     @Option(names = "--pack-file", paramLabel = "FILE", required = true,
@@ -112,11 +115,8 @@ public final class PackCommand extends BaseCommand {
         List<String> notes = new ArrayList<>(u.warnings());
         Mandate mandate = loaded.mandate();
         Optional<Policy> pol = loaded.policy();
-        if (pol.isPresent() && pol.get().turnoverMax().isPresent() && holdings != null) {
-            notes.add("The policy limits turnover to " + Explain.percent(pol.get().turnoverMax().getAsDouble())
-                    + "; the trade list moves the holdings fully to the proposal and is not limited by it (rebalancing "
-                    + "under the turnover limit and trading costs is a separate step).");
-        }
+        // the policy's trading limits shape the trade list (PackRunner: the full move when they restrict nothing)
+        TradingLimits trading = pol.map(TradingLimits::of).orElse(null);
         Optional<double[]> weights = Optional.empty();
         List<SourceFile> sources = new ArrayList<>(u.provenance().inputs());
         if (holdings != null) {
@@ -170,7 +170,7 @@ public final class PackCommand extends BaseCommand {
         ChartMaker charts = new EngineCharts(ChartContext.of(prov, spec.fund()), ChartSettings.defaults());
         PackRunner.Outcome o = PackRunner.run(new PackRunner.Request(u.universe(), mandate, spec, weights,
                 u.provenance().scenario() == null ? "" : "Inputs: " + u.provenance().scenario() + ".", version, now,
-                parameters, recorded, notes, scenarios, charts));
+                parameters, recorded, notes, scenarios, charts, trading));
 
         com.fasterxml.jackson.databind.node.ObjectNode params = spec.toJson();
         params.put("policy", policy == null ? null : policy.getFileName().toString());
@@ -229,6 +229,7 @@ public final class PackCommand extends BaseCommand {
                 Explain.percent(min.expectedReturn()), Explain.percent(min.volatility())));
         c.current().ifPresent(h -> b.append(String.format(Locale.ROOT, "  Current holdings: expected return %s, "
                 + "volatility %s%n", Explain.percent(h.expectedReturn()), Explain.percent(h.volatility()))));
+        c.trading().ifPresent(t -> b.append("  Trades: ").append(t.headline()).append('\n'));
         boolean pass = c.portfolios().stream().allMatch(PackContent.Portfolio::passes);
         b.append("  Certificates: ").append(pass ? "every portfolio passes its KKT check"
                 : "WARNING: a KKT certificate is above its tolerance (see the run record)").append('\n');

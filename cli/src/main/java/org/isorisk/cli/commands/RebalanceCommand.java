@@ -143,24 +143,23 @@ public final class RebalanceCommand extends BaseCommand {
         }
     }
 
+    /** The policy's trading limits ({@link TradingLimits#of}), with the command line's options applied. */
     private TradingLimits limits(Policy p, List<String> assets) {
+        TradingLimits base = TradingLimits.of(p);
         int n = assets.size();
-        double tau = maxTurnover != null ? inputs.units().rate(maxTurnover)
-                : p.turnoverMax().isPresent() ? p.turnoverMax().getAsDouble() : Double.POSITIVE_INFINITY;
-        double[] costs = p.costsBps() == null ? new double[n] : p.costsBps();
-        double[] trade = p.maxTrade() == null ? TradingOptions.perAsset("--max-trade", java.util.Map.of(), assets,
-                Double.POSITIVE_INFINITY) : p.maxTrade();
+        double tau = maxTurnover != null ? inputs.units().rate(maxTurnover) : base.maxTurnover();
+        double[] trade = base.maxTrade();
         double[] given = TradingOptions.perAsset("--max-trade", maxTrade, assets, Double.NaN);
         for (int i = 0; i < n; i++) {
             if (!Double.isNaN(given[i])) {
                 trade[i] = inputs.units().rate(given[i]);
             }
         }
-        Set<Integer> frozen = new TreeSet<>(p.noTrade());
+        Set<Integer> frozen = new TreeSet<>(base.noTrade());
         for (String a : noTrade) {
             frozen.add(TradingOptions.asset("--no-trade", a, assets));
         }
-        double min = minTrade == null ? p.minTrade() : inputs.units().rate(minTrade);
-        return new TradingLimits(tau, trade, costs, min, frozen);
+        double min = minTrade == null ? base.minTrade() : inputs.units().rate(minTrade);
+        return new TradingLimits(tau, trade, base.costBps(), min, frozen);
     }
 }

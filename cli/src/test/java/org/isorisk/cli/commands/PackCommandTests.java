@@ -86,7 +86,8 @@ class PackCommandTests {
         Path out = dir.resolve("pack");
         Run r = Run.of(args(out, "--policy", Run.SAMPLE.resolve("policy.yaml").toString()));
         assertEquals(0, r.code(), r.toString());
-        assertTrue(r.out().contains("The policy limits turnover to 20.00 %"), r.out());
+        assertTrue(r.out().contains("  Trades: The trade list keeps to the policy's trading limits: "), r.out());
+        assertTrue(r.out().contains("(limit 20.00 %)"), r.out());
         JsonNode nb = Run.json(out.resolve(PackLayout.NOTEBOOK));
         StringBuilder text = new StringBuilder();
         for (JsonNode cell : nb.get("cells")) {
@@ -100,6 +101,46 @@ class PackCommandTests {
                 "a bound binds under the policy");
         JsonNode m = Run.json(out.resolve(PackLayout.MANIFEST));
         assertEquals("policy.yaml", m.at("/parameters/policy").asText());
+    }
+
+    @Test
+    void underThePolicysTurnoverLimitThePacksTradesAreThoseOfTheRebalanceCommand() throws IOException {
+        Path out = dir.resolve("pack");
+        String policy = Run.SAMPLE.resolve("policy.yaml").toString();
+        assertEquals(0, Run.of(args(out, "--policy", policy)).code());
+        // the same inputs through `isorisk rebalance` at the pack file's proposed target (sample pack.yaml: 0.05)
+        Run rb = Run.of("rebalance", "--expected-returns", Run.SAMPLE.resolve("expected_returns.csv").toString(),
+                "--covariance", Run.SAMPLE.resolve("covariance.csv").toString(), "--policy", policy, "--holdings",
+                Run.SAMPLE.resolve("holdings.csv").toString(), "--target-return", "0.05", "--format", "json");
+        assertEquals(0, rb.code(), rb.toString());
+        JsonNode expected = rb.json();
+        List<String> csv = Files.readAllLines(out.resolve(PackLayout.table("trades")));
+        assertTrue(csv.get(1).contains("within the policy's trading limits"), csv.get(1));
+        List<String> head = List.of(csv.get(2).split(","));
+        double turnover = 0;
+        for (int k = 0; k < expected.get("trades").size(); k++) {
+            JsonNode t = expected.get("trades").get(k);
+            String[] row = csv.get(3 + k).split(",");
+            assertEquals(t.get("asset").asText(), row[0]);
+            double change = Double.parseDouble(row[head.indexOf("change")]);
+            assertEquals(t.get("trade_weight").asDouble(), change, 1e-15, t.get("asset").asText());
+            turnover += Math.abs(change);
+        }
+        assertEquals(expected.at("/turnover/two_way").asDouble(), turnover, 1e-12);
+        assertTrue(turnover <= 0.20 + 1e-7, "the policy's turnover.max: " + turnover);
+        List<String> summary = Files.readAllLines(out.resolve(PackLayout.table("trade_summary")));
+        assertTrue(summary.get(0).startsWith("# caution: "), summary.get(0));
+        assertTrue(summary.get(5).startsWith("Within the trading limits,"), summary.get(5));
+    }
+
+    @Test
+    void withoutAPolicyTheTradeListIsTheFullMoveAndTheSummarySaysSo() throws IOException {
+        Path out = dir.resolve("pack");
+        Run r = Run.of(args(out));
+        assertEquals(0, r.code(), r.toString());
+        assertTrue(r.out().contains("  Trades: No trading limit applies (the policy sets none), so the trade list is "
+                + "the full move from the current holdings to the proposal: turnover "), r.out());
+        assertTrue(Files.readAllLines(out.resolve(PackLayout.table("trades"))).get(1).contains("the full move"));
     }
 
     @Test

@@ -4,6 +4,7 @@ import java.util.Arrays;
 import java.util.Set;
 import java.util.TreeSet;
 import org.isorisk.engine.error.InputException;
+import org.isorisk.engine.model.Policy;
 
 /**
  * The limits a rebalance must respect on top of the mandate.
@@ -64,6 +65,73 @@ public record TradingLimits(double maxTurnover, double[] maxTrade, double[] cost
         double[] inf = new double[n];
         Arrays.fill(inf, Double.POSITIVE_INFINITY);
         return new TradingLimits(Double.POSITIVE_INFINITY, inf, new double[n], 0, Set.of());
+    }
+
+    /**
+     * The trading limits a policy file sets: {@code turnover.max}, {@code costs_bps} and the {@code trading}
+     * section (per-asset trade limits, minimum trade size, no-trade list); no limit where the policy sets none.
+     * The {@code rebalance} command starts from these and applies its options; the committee pack uses them as
+     * they are.
+     *
+     * @param p the policy, as read by the policy reader
+     */
+    public static TradingLimits of(Policy p) {
+        int n = p.mandate().size();
+        double[] trade = p.maxTrade();
+        if (trade == null) {
+            trade = new double[n];
+            Arrays.fill(trade, Double.POSITIVE_INFINITY);
+        }
+        double[] costs = p.costsBps() == null ? new double[n] : p.costsBps();
+        return new TradingLimits(p.turnoverMax().orElse(Double.POSITIVE_INFINITY), trade, costs, p.minTrade(),
+                p.noTrade());
+    }
+
+    /**
+     * True when some limit restricts which trades may be made: a finite turnover limit, a finite per-asset trade
+     * limit, a positive minimum trade size or a non-empty no-trade list. Costs alone restrict nothing (they only
+     * price the trades).
+     */
+    public boolean restrictsTrading() {
+        if (Double.isFinite(maxTurnover) || minTrade > 0 || !noTrade.isEmpty()) {
+            return true;
+        }
+        for (double t : maxTrade) {
+            if (Double.isFinite(t)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /**
+     * Two-way turnover {@code Σ|to_i − from_i|} of a move between two portfolios (the convention of
+     * {@link RebalanceResult#TURNOVER_CONVENTION}), decimal.
+     */
+    public static double turnover(double[] from, double[] to) {
+        if (from.length != to.length) {
+            throw new IllegalArgumentException("two portfolios of the same assets");
+        }
+        double t = 0;
+        for (int i = 0; i < from.length; i++) {
+            t += Math.abs(to[i] - from[i]);
+        }
+        return t;
+    }
+
+    /**
+     * Estimated cost {@code Σ c_i |to_i − from_i|} of a move at these limits' proportional costs, decimal fraction
+     * of the fund (the cost a rebalance reports, {@link RebalanceResult#cost()}).
+     */
+    public double cost(double[] from, double[] to) {
+        if (from.length != size() || to.length != size()) {
+            throw new IllegalArgumentException("one weight per asset of the limits");
+        }
+        double c = 0;
+        for (int i = 0; i < from.length; i++) {
+            c += cost(i) * Math.abs(to[i] - from[i]);
+        }
+        return c;
     }
 
     /** Number of assets covered. */

@@ -6,6 +6,7 @@ import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.engine.rebalance.RebalanceResult;
 import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.stress.StressResult;
 
@@ -24,16 +25,20 @@ import org.isorisk.engine.stress.StressResult;
  * @param holdings      current weights, when given
  * @param currentRisk   the current holdings' risk decomposition, when holdings are given
  * @param stressSweep   the scenarios run along the frontier's targets for the stress chart, when it is asked for
+ * @param rebalance     the move from the holdings toward the proposal's target within the policy's trading limits,
+ *                      when holdings are given, the policy limits trading and the target is within reach
  */
 public record PackResults(PackSpec spec, AssetUniverse universe, Mandate mandate, Solution minimum,
                           List<Solution> targets, Solution proposal, Optional<Solution> tangency,
                           Frontier frontier, RiskDecomposition risk, Optional<double[]> holdings,
-                          Optional<RiskDecomposition> currentRisk, Optional<StressResult> stressSweep) {
+                          Optional<RiskDecomposition> currentRisk, Optional<StressResult> stressSweep,
+                          Optional<RebalanceResult> rebalance) {
     public PackResults {
         stressSweep = stressSweep == null ? Optional.empty() : stressSweep;
         targets = List.copyOf(targets);
         holdings = holdings == null ? Optional.empty() : holdings.map(double[]::clone);
         currentRisk = currentRisk == null ? Optional.empty() : currentRisk;
+        rebalance = rebalance == null ? Optional.empty() : rebalance;
     }
 
     @Override

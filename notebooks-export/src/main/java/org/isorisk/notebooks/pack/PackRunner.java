@@ -26,6 +26,14 @@ import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.engine.rebalance.Breach;
+import org.isorisk.engine.rebalance.Holdings;
+import org.isorisk.engine.rebalance.RebalanceObjective;
+import org.isorisk.engine.rebalance.RebalanceRequest;
+import org.isorisk.engine.rebalance.RebalanceResult;
+import org.isorisk.engine.rebalance.Rebalancer;
+import org.isorisk.engine.rebalance.Trade;
+import org.isorisk.engine.rebalance.TradingLimits;
 import org.isorisk.engine.risk.Correlations;
 import org.isorisk.engine.risk.RiskAnalysis;
 import org.isorisk.engine.risk.RiskDecomposition;
@@ -45,7 +53,8 @@ import org.isorisk.notebooks.Table;
  * Runs the whole analysis of a committee pack through the engine and lays the results out as
  * {@link PackContent}: the minimum-variance portfolio, one portfolio per target, the tangency portfolio when a
  * risk-free rate is given, a sampled frontier, the risk decomposition of the proposal, the binding
- * constraints with their shadow prices in sentences, the trade list from current holdings, and the charts.
+ * constraints with their shadow prices in sentences, the trade list from current holdings (within the policy's
+ * trading limits when it sets any, through {@link Rebalancer}), and the charts.
  * Every number comes from an engine call; this class only chooses what to ask and how to show it.
  */
 public final class PackRunner {
@@ -73,11 +82,23 @@ public final class PackRunner {
      * @param notes       remarks from reading the inputs (warnings), for the run record
      * @param scenarios   stress scenarios to run at the pack's targets (read from the pack file's scenario file)
      * @param charts      draws the charts
+     * @param trading     the policy's trading limits ({@link TradingLimits#of}); when they restrict trading and
+     *                    holdings are given, the trade list is the rebalancer's move within them; none when null
      */
     public record Request(AssetUniverse universe, Mandate mandate, PackSpec spec, Optional<double[]> holdings,
                           String estimator, String toolVersion, OffsetDateTime created,
                           List<PackContent.Parameter> parameters, List<PackContent.InputFile> inputs,
-                          List<String> notes, List<Scenario> scenarios, ChartMaker charts) {
+                          List<String> notes, List<Scenario> scenarios, ChartMaker charts, TradingLimits trading) {
+
+        /** A run without trading limits: the trade list, when holdings are given, is the full move. */
+        public Request(AssetUniverse universe, Mandate mandate, PackSpec spec, Optional<double[]> holdings,
+                       String estimator, String toolVersion, OffsetDateTime created,
+                       List<PackContent.Parameter> parameters, List<PackContent.InputFile> inputs, List<String> notes,
+                       List<Scenario> scenarios, ChartMaker charts) {
+            this(universe, mandate, spec, holdings, estimator, toolVersion, created, parameters, inputs, notes,
+                    scenarios, charts, null);
+        }
+
         public Request {
             Objects.requireNonNull(universe, "universe");
             Objects.requireNonNull(mandate, "mandate");
@@ -91,12 +112,22 @@ public final class PackRunner {
             notes = List.copyOf(notes);
             scenarios = scenarios == null ? List.of() : List.copyOf(scenarios);
             Objects.requireNonNull(charts, "charts");
+            trading = trading == null ? TradingLimits.none(universe.size()) : trading;
+            if (trading.size() != universe.size()) {
+                throw new IllegalArgumentException("the trading limits must cover the universe's " + universe.size()
+                        + " assets");
+            }
         }
     }
 
     /** What a run produced: the engine results and the laid-out content. */
     public record Outcome(PackResults results, PackContent content) {
     }
+
+    /** Title of the trade table when it is the full move to the proposal. */
+    static final String FULL_MOVE_TITLE = "Trades from the current holdings: the full move to the proposal";
+    /** Title of the trade table when it is the rebalancer's move within the trading limits. */
+    static final String WITHIN_LIMITS_TITLE = "Trades from the current holdings within the policy's trading limits";
 
     /**
      * Runs the analysis.
@@ -144,8 +175,20 @@ public final class PackRunner {
             sweep = Optional.of(Stress.run(new StressRequest(u, r.mandate(), along, r.scenarios(),
                     CorrelationRepair.higham(u.assets()), base.settings()), StressProgress.NONE));
         }
+        // The trade list: within the policy's trading limits when it sets any (the rebalancer, aiming at the
+        // proposal's target after costs), else the full move. A target out of reach within the limits is reported
+        // in the pack, not a failure of the pack.
+        Optional<RebalanceResult> rebalance = Optional.empty();
+        Optional<NoSolutionException> outOfReach = Optional.empty();
+        if (r.holdings().isPresent() && r.trading().restrictsTrading()) {
+            try {
+                rebalance = Optional.of(Rebalancer.rebalance(rebalanceRequest(r, base)));
+            } catch (NoSolutionException e) {
+                outOfReach = Optional.of(e);
+            }
+        }
         PackResults results = new PackResults(spec, u, r.mandate(), minimum, targets, proposal, tangency, frontier,
-                risk, r.holdings(), currentRisk, sweep);
+                risk, r.holdings(), currentRisk, sweep, rebalance);
         List<PackContent.Chart> charts = r.charts().draw(results);
         if (charts.isEmpty() && !spec.charts().isEmpty()) {
             notes.add("Charts were asked for but none was drawn.");
@@ -159,7 +202,19 @@ public final class PackRunner {
             stress.add(stressTable(sr));
             notes.addAll(sr.notes());
         }
-        return new Outcome(results, layout(r, results, charts, notes, stress));
+        return new Outcome(results, layout(r, results, charts, notes, stress, outOfReach));
+    }
+
+    /**
+     * The rebalance the pack's trade list comes from when the policy limits trading: today's holdings (with the
+     * pack file's fund size, for amounts), the policy's trading limits, and the proposal's target as the return
+     * to reach after costs.
+     */
+    static RebalanceRequest rebalanceRequest(Request r, AllocationRequest base) {
+        double size = r.spec().fundSize().orElse(Double.NaN);
+        Holdings h = Holdings.ofWeights(r.universe().assets(), r.holdings().orElseThrow(), size);
+        return new RebalanceRequest(r.universe(), r.mandate(), h, r.trading(),
+                new RebalanceObjective.TargetReturn(r.spec().proposed()), base.settings());
     }
 
     /**
@@ -199,7 +254,7 @@ public final class PackRunner {
     }
 
     private static PackContent layout(Request r, PackResults res, List<PackContent.Chart> charts, List<String> notes,
-                                      List<Table> stress) {
+                                      List<Table> stress, Optional<NoSolutionException> outOfReach) {
         PackSpec spec = r.spec();
         AssetUniverse u = r.universe();
         List<String> assets = u.assets();
@@ -341,7 +396,29 @@ public final class PackRunner {
             rt.row(assets.get(i), w[i], marginal[i], contribution[i], vol > 0 ? contribution[i] / vol : Double.NaN);
         }
 
-        Optional<Table> trades = res.holdings().map(h -> trades(assets, h, w, spec));
+        Optional<Table> trades = Optional.empty();
+        Optional<PackContent.Trading> trading = Optional.empty();
+        if (held.isPresent()) {
+            double[] h = held.get();
+            if (res.rebalance().isPresent()) {
+                RebalanceResult rb = res.rebalance().get();
+                trades = Optional.of(trades(rb, spec));
+                for (String note : rb.notes()) {
+                    // the conventions are printed in the Trades section itself
+                    if (!note.equals(RebalanceResult.TURNOVER_CONVENTION)
+                            && !note.equals(RebalanceResult.COST_CONVENTION)) {
+                        runNotes.add("Trades within the trading limits: " + note);
+                    }
+                }
+                if (!rb.proposal().certificate().passes()) {
+                    runNotes.add("Trades within the trading limits: the KKT certificate is above its tolerance ("
+                            + certificateLine(rb.proposal().certificate()) + "); treat the trade list with caution.");
+                }
+            } else if (outOfReach.isEmpty()) {
+                trades = Optional.of(trades(assets, h, w, spec));
+            }
+            trading = Optional.of(trading(r, res, outOfReach));
+        }
 
         List<PackContent.Parameter> parameters = new ArrayList<>(r.parameters());
         parameters.add(new PackContent.Parameter("Targets", String.join(", ",
@@ -353,11 +430,12 @@ public final class PackRunner {
         PackContent.RunRecord run = new PackContent.RunRecord(r.toolVersion(), r.created(), parameters, r.inputs(),
                 new ArrayList<>(runNotes));
         return new PackContent(heading, assumptions, MandateWords.describe(r.mandate(), assets), portfolios, frontier,
-                wt.build(), rt.build(), binding, cons.build(), charts, trades, stress, run);
+                wt.build(), rt.build(), binding, cons.build(), charts, trades, stress, run, trading);
     }
 
+    /** The full move from the holdings to the proposal. */
     private static Table trades(List<String> assets, double[] current, double[] proposed, PackSpec spec) {
-        Table.Builder b = Table.builder("trades", "Trades from the current holdings")
+        Table.Builder b = Table.builder("trades", FULL_MOVE_TITLE)
                 .column(Table.Column.text("asset", "Asset"))
                 .column(Table.Column.percent("current", "Current"))
                 .column(Table.Column.percent("proposed", "Proposed"))
@@ -372,6 +450,173 @@ public final class PackRunner {
             }
         }
         return b.build();
+    }
+
+    /** The rebalancer's move within the trading limits, one row per asset in the universe's order. */
+    private static Table trades(RebalanceResult rb, PackSpec spec) {
+        boolean money = spec.fundSize().isPresent();
+        Table.Builder b = Table.builder("trades", WITHIN_LIMITS_TITLE)
+                .column(Table.Column.text("asset", "Asset"))
+                .column(Table.Column.percent("current", "Current"))
+                .column(Table.Column.percent("proposed", "Within the limits"))
+                .column(Table.Column.percent("change", "Change"));
+        if (money) {
+            b.column(Table.Column.amount("amount", "Amount (" + spec.currency() + ")"))
+                    .column(Table.Column.amount("cost", "Cost (" + spec.currency() + ")"));
+        } else {
+            b.column(Table.Column.percent("cost", "Cost"));
+        }
+        b.column(Table.Column.text("side", "Side")).column(Table.Column.text("note", "Note"));
+        double size = spec.fundSize().orElse(Double.NaN);
+        for (Trade t : rb.trades()) {
+            String note = t.frozen() == null ? "" : t.frozen().equals("no-trade") ? "on the no-trade list"
+                    : "trade below the minimum size dropped";
+            if (money) {
+                b.row(t.asset(), t.current(), t.target(), t.trade(), t.amount(), t.cost() * size, t.side().label(),
+                        note);
+            } else {
+                b.row(t.asset(), t.current(), t.target(), t.trade(), t.cost(), t.side().label(), note);
+            }
+        }
+        return b.build();
+    }
+
+    /**
+     * How the trade list was made: which of the two it is, the limits in words, the full move beside the move
+     * within the limits, today's breaches, the engine's shadow-price sentences, the conventions.
+     */
+    private static PackContent.Trading trading(Request r, PackResults res, Optional<NoSolutionException> outOfReach) {
+        AssetUniverse u = r.universe();
+        TradingLimits lim = r.trading();
+        double[] h = res.holdings().orElseThrow();
+        Solution p = res.proposal();
+        double[] w = p.weights();
+        RiskDecomposition now = res.currentRisk().orElseThrow();
+        double fullTurnover = TradingLimits.turnover(h, w);
+        double fullCost = lim.cost(h, w);
+        String target = Explain.percent(r.spec().proposed());
+        Optional<RebalanceResult> rb = res.rebalance();
+
+        PackContent.Trading.Mode mode;
+        String headline;
+        if (!lim.restrictsTrading()) {
+            mode = PackContent.Trading.Mode.FULL_MOVE;
+            headline = "No trading limit applies (the policy sets none), so the trade list is the full move from the "
+                    + "current holdings to the proposal: turnover " + Explain.percent(fullTurnover) + ".";
+        } else if (rb.isPresent()) {
+            mode = PackContent.Trading.Mode.WITHIN_LIMITS;
+            RebalanceResult x = rb.get();
+            headline = "The trade list keeps to the policy's trading limits: the least-risk move from the current "
+                    + "holdings that reaches the proposal's target " + target + " after costs, with turnover "
+                    + Explain.percent(x.turnover())
+                    + (Double.isFinite(lim.maxTurnover()) ? " (limit " + Explain.percent(lim.maxTurnover()) + ")" : "")
+                    + "; the full move to the proposal would need turnover " + Explain.percent(fullTurnover) + ".";
+        } else {
+            mode = PackContent.Trading.Mode.OUT_OF_REACH;
+            NoSolutionException e = outOfReach.orElseThrow();
+            headline = (e.reason() == NoSolutionException.Reason.INFEASIBLE
+                    ? "The proposal's target " + target + " cannot be reached within the policy's trading limits, "
+                    + "so the pack proposes no trade list: "
+                    : "No trade list within the policy's trading limits was found, so the pack proposes none: ")
+                    + e.getMessage() + " (here the target is the pack file's proposed target). The full move to the "
+                    + "proposal would need turnover " + Explain.percent(fullTurnover) + ".";
+        }
+
+        Table.Builder cmp = Table.builder("trade_summary", mode == PackContent.Trading.Mode.WITHIN_LIMITS
+                        ? "The full move beside the move within the trading limits" : "The full move to the proposal")
+                .column(Table.Column.text("portfolio", "Portfolio"))
+                .column(Table.Column.percent("expected_return", "Expected return"))
+                .column(Table.Column.percent("return_after_costs", "Return after costs"))
+                .column(Table.Column.percent("volatility", "Volatility"))
+                .column(Table.Column.percent("turnover", "Turnover (two-way)"))
+                .column(Table.Column.percent("cost", "Cost"))
+                .column(Table.Column.percent("tracking_error", "Tracking error against today"));
+        cmp.row(CURRENT, now.expectedReturn(), now.expectedReturn(), now.volatility(), 0.0, 0.0, 0.0);
+        cmp.row("Full move to the proposal", p.expectedReturn(), p.expectedReturn() - fullCost, p.volatility(),
+                fullTurnover, fullCost, RiskAnalysis.trackingError(u, w, h).value());
+        rb.ifPresent(x -> cmp.row("Within the trading limits", x.proposedReturn(), x.proposedNetReturn(),
+                x.proposedVolatility(), x.turnover(), x.cost(), x.trackingError()));
+
+        String reading = "";
+        if (rb.isPresent()) {
+            RebalanceResult x = rb.get();
+            boolean binds = x.binding().stream().map(Multiplier::constraint).anyMatch(c -> c.equals("turnover")
+                    || c.startsWith("trade_limit:") || c.startsWith("no_trade:") || c.startsWith("min_trade:"));
+            double fullNet = p.expectedReturn() - fullCost;
+            if (binds) {
+                reading = "The trading limits bind: keeping to them" + (lim.hasCosts() ? " and paying the costs" : "")
+                        + " moves the volatility from " + Explain.percent(p.volatility()) + " (the full move) to "
+                        + Explain.percent(x.proposedVolatility()) + "; what each binding limit costs at the margin "
+                        + "is below.";
+            } else if (lim.hasCosts() && fullNet < r.spec().proposed()) {
+                reading = "No trading limit binds here: the move differs from the full move because trading costs "
+                        + "are deducted from the return the target must reach; the full move would return "
+                        + Explain.percent(fullNet) + " after costs, short of the " + target + " target.";
+            } else if (lim.hasCosts()) {
+                reading = "No trading limit binds here: the move differs from the full move only through the trading "
+                        + "costs.";
+            } else {
+                reading = "No trading limit binds here, so the move within the limits is the full move (to the "
+                        + "solver's tolerance).";
+            }
+        }
+        List<String> tradingNotes = new ArrayList<>();
+        tradingNotes.add(RebalanceResult.TURNOVER_CONVENTION);
+        if (lim.hasCosts()) {
+            tradingNotes.add(mode == PackContent.Trading.Mode.FULL_MOVE
+                    ? "The costs shown are the policy's trading costs (basis points of the amount traded) of the full "
+                    + "move; the proposal was not chosen with them."
+                    : RebalanceResult.COST_CONVENTION);
+        }
+        rb.ifPresent(x -> tradingNotes.add("The move within the limits: " + certificateLine(x.proposal().certificate())
+                + " (the KKT certificate of the rebalance problem)."));
+        return new PackContent.Trading(mode, headline, limitWords(lim, u.assets()), cmp.build(), reading,
+                rb.map(x -> x.breaches().stream().map(Breach::description).toList()).orElse(List.of()),
+                rb.map(RebalanceResult::sentences).orElse(List.of()), tradingNotes);
+    }
+
+    /** The trading limits in words, one per rule; empty when none applies. */
+    static List<String> limitWords(TradingLimits lim, List<String> assets) {
+        List<String> out = new ArrayList<>();
+        if (Double.isFinite(lim.maxTurnover())) {
+            out.add("Turnover (two-way: buys plus sells) at most " + Explain.percent(lim.maxTurnover())
+                    + " of the fund.");
+        }
+        double[] t = lim.maxTrade();
+        List<String> capped = new ArrayList<>();
+        boolean same = true;
+        for (int i = 0; i < t.length; i++) {
+            if (Double.isFinite(t[i])) {
+                capped.add(assets.get(i) + " at most " + Explain.percent(t[i]));
+            }
+            same &= t[i] == t[0];
+        }
+        if (!capped.isEmpty()) {
+            out.add(same ? "No asset trades more than " + Explain.percent(t[0]) + " of the fund."
+                    : "Largest trade per asset: " + String.join("; ", capped) + ".");
+        }
+        if (lim.minTrade() > 0) {
+            out.add("Trades smaller than " + Explain.percent(lim.minTrade()) + " of the fund are dropped (the asset "
+                    + "stays at today's weight).");
+        }
+        if (!lim.noTrade().isEmpty()) {
+            out.add("Not traded: " + String.join(", ", lim.noTrade().stream().map(assets::get).toList()) + ".");
+        }
+        if (lim.hasCosts()) {
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = 0;
+            for (double c : lim.costBps()) {
+                lo = Math.min(lo, c);
+                hi = Math.max(hi, c);
+            }
+            out.add("Trading costs: " + (lo == hi ? bps(lo) : bps(lo) + " to " + bps(hi))
+                    + " basis points of the amount traded.");
+        }
+        return out;
+    }
+
+    private static String bps(double v) {
+        return BigDecimal.valueOf(v).stripTrailingZeros().toPlainString();
     }
 
     private static PackContent.Pair pair(Correlations.Pair p) {
