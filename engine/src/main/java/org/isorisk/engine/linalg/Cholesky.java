@@ -85,6 +85,27 @@ public final class Cholesky {
         return factorInPlace(n, l, t, Math.max(4, block)) ? new Cholesky(n, l) : null;
     }
 
+    /**
+     * Factors a lower triangle held by rows in place, with the same blocked algorithm as
+     * {@link #factor(double[][], int)}: on entry row i holds {@code A[i][0..i]}, on return {@code L[i][0..i]}.
+     * For callers that keep and update the factor themselves (the active-set QP's reduced Hessian), so that
+     * the rows need not be copied twice.
+     *
+     * @param rows    row i of length at least {@code i + 1} (only entries 0..i are read and written)
+     * @param threads worker threads for large matrices, at least 1
+     * @return false when a pivot is not positive or not finite (not positive definite); the rows are then
+     *         partly overwritten
+     */
+    public static boolean factorRowsInPlace(double[][] rows, int threads) {
+        int n = rows.length;
+        for (int i = 0; i < n; i++) {
+            if (rows[i].length < i + 1) {
+                throw new IllegalArgumentException("row " + i + " is shorter than the lower triangle needs");
+            }
+        }
+        return factorInPlace(n, rows, n >= PARALLEL_MIN ? Math.max(1, threads) : 1, BLOCK);
+    }
+
     private static boolean factorInPlace(int n, double[][] l, int threads, int block) {
         double[][] panel = n > block ? new double[block][n] : null;
         for (int start = 0; start < n; start += block) {
@@ -250,6 +271,11 @@ public final class Cholesky {
     /** Row i of L, entries 0..i (shared with this factor: not to be modified). */
     double[] row(int i) {
         return l[i];
+    }
+
+    /** A copy of row i of L, entries 0..i. */
+    public double[] copyOfRow(int i) {
+        return l[i].clone();
     }
 
     /** Entry (i, j) of L (zero above the diagonal). */
