@@ -106,6 +106,26 @@ public final class Cholesky {
         return factorInPlace(n, rows, n >= PARALLEL_MIN ? Math.max(1, threads) : 1, BLOCK);
     }
 
+    /**
+     * Wraps a lower triangular factor held by rows (row i holds {@code L[i][0..i]}; longer rows are trimmed to
+     * that length, rows of exactly that length are shared, not copied: the caller must not modify them
+     * afterwards). For a factor that was kept up to date by row additions and deletions rather than computed here.
+     *
+     * @throws IllegalArgumentException when a row is too short or a diagonal entry is not positive and finite
+     */
+    public static Cholesky ofRows(double[][] rows) {
+        int n = rows.length;
+        double[][] l = new double[n][];
+        for (int i = 0; i < n; i++) {
+            double[] r = rows[i];
+            if (r.length < i + 1 || !(r[i] > 0) || !Double.isFinite(r[i])) {
+                throw new IllegalArgumentException("row " + i + " is not a row of a Cholesky factor");
+            }
+            l[i] = r.length == i + 1 ? r : java.util.Arrays.copyOf(r, i + 1);
+        }
+        return new Cholesky(n, l);
+    }
+
     private static boolean factorInPlace(int n, double[][] l, int threads, int block) {
         double[][] panel = n > block ? new double[block][n] : null;
         for (int start = 0; start < n; start += block) {
@@ -404,6 +424,35 @@ public final class Cholesky {
         for (int k = from; k < to; k++) {
             y[k] += c * x[k];
         }
+    }
+
+    /** {@code L L' x}, the factored matrix applied to x ({@code x} not modified). */
+    public double[] multiply(double[] x) {
+        checkLength(x);
+        double[] y = new double[n];
+        for (int i = 0; i < n; i++) {
+            axpy(x[i], l[i], y, 0, i + 1); // y = L'x, row i of L contributing x_i·L[i][0..i]
+        }
+        double[] z = new double[n];
+        for (int i = 0; i < n; i++) {
+            double[] row = l[i];
+            double s0 = 0;
+            double s1 = 0;
+            double s2 = 0;
+            double s3 = 0;
+            int k = 0;
+            for (; k + 3 <= i; k += 4) {
+                s0 += row[k] * y[k];
+                s1 += row[k + 1] * y[k + 1];
+                s2 += row[k + 2] * y[k + 2];
+                s3 += row[k + 3] * y[k + 3];
+            }
+            for (; k <= i; k++) {
+                s0 += row[k] * y[k];
+            }
+            z[i] = (s0 + s1) + (s2 + s3);
+        }
+        return z;
     }
 
     /** Smallest diagonal entry of L (its square bounds the smallest eigenvalue from above). */

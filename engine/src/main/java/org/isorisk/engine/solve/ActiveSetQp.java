@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Locale;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.linalg.Cholesky;
+import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.Relation;
 
 /**
@@ -810,65 +811,15 @@ final class ActiveSetQp {
         }
     }
 
-    /** Condition number of {@code Σ_FF = L L'}, estimated by power and inverse iteration with the factor. */
+    /**
+     * Condition number of {@code Σ_FF = L L'} from the factor as updated (exact up to 64 free assets, else the
+     * Lanczos estimate of {@link Spectrum#ofFactor} to {@link Spectrum#CONDITION_ACCURACY}).
+     */
     private double condition() {
         if (k == 0) {
             return 1;
         }
-        double big = power(false);
-        double small = 1 / power(true);
-        return big / small;
-    }
-
-    private double power(boolean inverse) {
-        double[] x = new double[k];
-        for (int t = 0; t < k; t++) {
-            x[t] = 1.0 + 0.37 * Math.sin(1.0 + t);
-        }
-        double lambda = 0;
-        for (int it = 0; it < 60; it++) {
-            double nrm = 0;
-            for (double v : x) {
-                nrm += v * v;
-            }
-            nrm = Math.sqrt(nrm);
-            for (int t = 0; t < k; t++) {
-                x[t] /= nrm;
-            }
-            double[] yv = x.clone();
-            if (inverse) {
-                forward(yv);
-                backward(yv);
-            } else {
-                // y = L (L' x)
-                double[] u = new double[k];
-                for (int t = 0; t < k; t++) {
-                    double[] lt = l[t];
-                    double xt = x[t];
-                    for (int c = 0; c <= t; c++) {
-                        u[c] += lt[c] * xt;
-                    }
-                }
-                for (int t = 0; t < k; t++) {
-                    double[] lt = l[t];
-                    double v = 0;
-                    for (int c = 0; c <= t; c++) {
-                        v += lt[c] * u[c];
-                    }
-                    yv[t] = v;
-                }
-            }
-            double next = 0;
-            for (int t = 0; t < k; t++) {
-                next += x[t] * yv[t];
-            }
-            x = yv;
-            if (it > 5 && Math.abs(next - lambda) <= 1e-4 * Math.abs(next)) {
-                return next;
-            }
-            lambda = next;
-        }
-        return lambda;
+        return Spectrum.ofFactor(Cholesky.ofRows(Arrays.copyOf(l, k)), Spectrum.CONDITION_ACCURACY).conditionNumber();
     }
 
     /** Householder QR of the k × ma matrix whose columns are {@code cols[0..ma)}, for least squares. */

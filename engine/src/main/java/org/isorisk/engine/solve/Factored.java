@@ -28,14 +28,12 @@ public final class Factored {
     private static final int MEMO_LIMIT = 64;
 
     private final AssetUniverse universe;
-    private final double[][] sigma;
     private final Cholesky chol;
     private final Spectrum spectrum;
     private final Map<Key, double[]> memo = new ConcurrentHashMap<>();
 
-    private Factored(AssetUniverse universe, double[][] sigma, Cholesky chol, Spectrum spectrum) {
+    private Factored(AssetUniverse universe, Cholesky chol, Spectrum spectrum) {
         this.universe = universe;
-        this.sigma = sigma;
         this.chol = chol;
         this.spectrum = spectrum;
     }
@@ -57,16 +55,19 @@ public final class Factored {
      * @throws NoSolutionException (NOT_CONVEX) as {@link #of(AssetUniverse)}
      */
     public static Factored of(AssetUniverse u, SolverSettings settings) {
-        double[][] sigma = u.covariance();
-        Cholesky chol = Cholesky.factor(sigma, settings.threads());
-        if (chol == null) {
+        // Only the lower triangle is copied, and factored in place; products with Σ read the universe's own rows.
+        double[][] rows = u.covarianceLowerRows();
+        if (!Cholesky.factorRowsInPlace(rows, settings.threads())) {
+            double[][] sigma = u.covariance();
             throw notPositiveDefinite(u, sigma, Spectrum.of(sigma, null));
         }
-        Spectrum sp = Spectrum.of(sigma, chol);
+        Cholesky chol = Cholesky.ofRows(rows);
+        Spectrum sp = u.size() <= Spectrum.EXACT_LIMIT ? Spectrum.exact(u.covariance())
+                : Spectrum.ofFactor(chol, Spectrum.CONDITION_ACCURACY);
         if (!(sp.smallest() > SINGULAR * sp.largest())) {
-            throw notPositiveDefinite(u, sigma, sp);
+            throw notPositiveDefinite(u, u.covariance(), sp);
         }
-        return new Factored(u, sigma, chol, sp);
+        return new Factored(u, chol, sp);
     }
 
     static NoSolutionException notPositiveDefinite(AssetUniverse u, double[][] sigma, Spectrum sp) {
@@ -109,15 +110,20 @@ public final class Factored {
         return universe;
     }
 
-    /** The covariance (shared, do not modify). */
-    double[][] sigma() {
-        return sigma;
+    /** {@code Σw} from the universe's covariance, not copied ({@code w} not modified). */
+    double[] sigmaTimes(double[] w) {
+        return universe.covarianceTimes(w);
     }
 
     public Cholesky cholesky() {
         return chol;
     }
 
+    /**
+     * Extreme eigenvalues of Σ: exact up to {@link Spectrum#EXACT_LIMIT} assets, above it the Lanczos estimate
+     * to {@link Spectrum#CONDITION_ACCURACY} (each to about 1 %, inside the spectrum), which is what the
+     * certificate's condition number and the singularity check need.
+     */
     public Spectrum spectrum() {
         return spectrum;
     }
