@@ -455,6 +455,40 @@ public final class Cholesky {
         return z;
     }
 
+    /** {@code L L' x_c} for several vectors, each row of L read once for all of them (not modified). */
+    public double[][] multiply(double[][] xs) {
+        int c = xs.length;
+        double[][] y = new double[c][n];
+        for (double[] x : xs) {
+            checkLength(x);
+        }
+        for (int i = 0; i < n; i++) {
+            double[] row = l[i];
+            for (int v = 0; v < c; v++) {
+                axpy(xs[v][i], row, y[v], 0, i + 1);
+            }
+        }
+        double[][] z = new double[c][n];
+        for (int i = 0; i < n; i++) {
+            double[] row = l[i];
+            for (int v = 0; v < c; v++) {
+                double[] yv = y[v];
+                double s0 = 0;
+                double s1 = 0;
+                int k = 0;
+                for (; k + 1 <= i; k += 2) {
+                    s0 += row[k] * yv[k];
+                    s1 += row[k + 1] * yv[k + 1];
+                }
+                for (; k <= i; k++) {
+                    s0 += row[k] * yv[k];
+                }
+                z[v][i] = s0 + s1;
+            }
+        }
+        return z;
+    }
+
     /** Smallest diagonal entry of L (its square bounds the smallest eigenvalue from above). */
     public double minPivot() {
         double m = Double.POSITIVE_INFINITY;

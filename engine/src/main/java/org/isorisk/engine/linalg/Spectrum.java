@@ -118,13 +118,7 @@ public record Spectrum(double smallest, double largest, boolean exact) {
             }
             return exact(a);
         }
-        return iterative(n, chol, chol::multiply, v -> {
-            double[][] out = new double[v.length][];
-            for (int c = 0; c < v.length; c++) {
-                out[c] = chol.multiply(v[c]);
-            }
-            return out;
-        }, accuracy);
+        return iterative(n, chol, chol::multiply, chol::multiply, accuracy);
     }
 
     /** The full symmetric eigendecomposition, whatever the size. */

@@ -240,6 +240,16 @@ class CholeskyTests {
             for (int i = 0; i < n; i++) {
                 assertEquals(ref[i], got[i], 1e-12 * n * Math.max(1, scale), "L L'x entry " + i);
             }
+            double[] x2 = new double[n];
+            for (int i = 0; i < n; i++) {
+                x2[i] = 1.0 / (i + 2.0);
+            }
+            double[][] both = wrapped.multiply(new double[][] {x, x2});
+            double[] ref2 = new org.apache.commons.math3.linear.Array2DRowRealMatrix(a).operate(x2); // Commons Math
+            for (int i = 0; i < n; i++) {
+                assertEquals(got[i], both[0][i], 1e-12 * n * Math.max(1, scale), "block product, first vector " + i);
+                assertEquals(ref2[i], both[1][i], 1e-12 * n * Math.max(1, scale), "block product, second vector " + i);
+            }
             double[] back = wrapped.solve(got);
             for (int i = 0; i < n; i++) {
                 assertEquals(x[i], back[i], 1e-8, "solve undoes multiply, entry " + i);
