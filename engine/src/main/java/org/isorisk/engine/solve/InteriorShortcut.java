@@ -37,7 +37,7 @@ final class InteriorShortcut {
         Factored f;
         Solution cf;
         try {
-            f = Factored.of(u, r.settings());
+            f = Factored.ofOverlapped(u, r.settings());
             cf = Allocator.closedForm(f, equalities, r.objective(), r);
         } catch (NoSolutionException e) {
             return null; // let the bounded method diagnose it with the whole mandate in view
