@@ -144,7 +144,10 @@ public final class Factored {
         return universe;
     }
 
-    /** {@code Σw} from the universe's covariance, not copied ({@code w} not modified); the last product is remembered. */
+    /**
+     * {@code Σw} from the universe's covariance, not copied ({@code w} not modified); the last product is
+     * remembered, so that the certificate of the same weights does not compute it again.
+     */
     double[] sigmaTimes(double[] w) {
         double[][] last = lastProduct;
         if (last != null && Arrays.equals(last[0], w)) {
