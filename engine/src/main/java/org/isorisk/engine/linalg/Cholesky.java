@@ -85,6 +85,47 @@ public final class Cholesky {
         return factorInPlace(n, l, t, Math.max(4, block)) ? new Cholesky(n, l) : null;
     }
 
+    /**
+     * Factors a lower triangle held by rows in place, with the same blocked algorithm as
+     * {@link #factor(double[][], int)}: on entry row i holds {@code A[i][0..i]}, on return {@code L[i][0..i]}.
+     * For callers that keep and update the factor themselves (the active-set QP's reduced Hessian), so that
+     * the rows need not be copied twice.
+     *
+     * @param rows    row i of length at least {@code i + 1} (only entries 0..i are read and written)
+     * @param threads worker threads for large matrices, at least 1
+     * @return false when a pivot is not positive or not finite (not positive definite); the rows are then
+     *         partly overwritten
+     */
+    public static boolean factorRowsInPlace(double[][] rows, int threads) {
+        int n = rows.length;
+        for (int i = 0; i < n; i++) {
+            if (rows[i].length < i + 1) {
+                throw new IllegalArgumentException("row " + i + " is shorter than the lower triangle needs");
+            }
+        }
+        return factorInPlace(n, rows, n >= PARALLEL_MIN ? Math.max(1, threads) : 1, BLOCK);
+    }
+
+    /**
+     * Wraps a lower triangular factor held by rows (row i holds {@code L[i][0..i]}; longer rows are trimmed to
+     * that length, rows of exactly that length are shared, not copied: the caller must not modify them
+     * afterwards). For a factor that was kept up to date by row additions and deletions rather than computed here.
+     *
+     * @throws IllegalArgumentException when a row is too short or a diagonal entry is not positive and finite
+     */
+    public static Cholesky ofRows(double[][] rows) {
+        int n = rows.length;
+        double[][] l = new double[n][];
+        for (int i = 0; i < n; i++) {
+            double[] r = rows[i];
+            if (r.length < i + 1 || !(r[i] > 0) || !Double.isFinite(r[i])) {
+                throw new IllegalArgumentException("row " + i + " is not a row of a Cholesky factor");
+            }
+            l[i] = r.length == i + 1 ? r : java.util.Arrays.copyOf(r, i + 1);
+        }
+        return new Cholesky(n, l);
+    }
+
     private static boolean factorInPlace(int n, double[][] l, int threads, int block) {
         double[][] panel = n > block ? new double[block][n] : null;
         for (int start = 0; start < n; start += block) {
@@ -252,6 +293,11 @@ public final class Cholesky {
         return l[i];
     }
 
+    /** A copy of row i of L, entries 0..i. */
+    public double[] copyOfRow(int i) {
+        return l[i].clone();
+    }
+
     /** Entry (i, j) of L (zero above the diagonal). */
     public double factorEntry(int i, int j) {
         return j > i ? 0 : l[i][j];
@@ -378,6 +424,69 @@ public final class Cholesky {
         for (int k = from; k < to; k++) {
             y[k] += c * x[k];
         }
+    }
+
+    /** {@code L L' x}, the factored matrix applied to x ({@code x} not modified). */
+    public double[] multiply(double[] x) {
+        checkLength(x);
+        double[] y = new double[n];
+        for (int i = 0; i < n; i++) {
+            axpy(x[i], l[i], y, 0, i + 1); // y = L'x, row i of L contributing x_i·L[i][0..i]
+        }
+        double[] z = new double[n];
+        for (int i = 0; i < n; i++) {
+            double[] row = l[i];
+            double s0 = 0;
+            double s1 = 0;
+            double s2 = 0;
+            double s3 = 0;
+            int k = 0;
+            for (; k + 3 <= i; k += 4) {
+                s0 += row[k] * y[k];
+                s1 += row[k + 1] * y[k + 1];
+                s2 += row[k + 2] * y[k + 2];
+                s3 += row[k + 3] * y[k + 3];
+            }
+            for (; k <= i; k++) {
+                s0 += row[k] * y[k];
+            }
+            z[i] = (s0 + s1) + (s2 + s3);
+        }
+        return z;
+    }
+
+    /** {@code L L' x_c} for several vectors, each row of L read once for all of them (not modified). */
+    public double[][] multiply(double[][] xs) {
+        int c = xs.length;
+        double[][] y = new double[c][n];
+        for (double[] x : xs) {
+            checkLength(x);
+        }
+        for (int i = 0; i < n; i++) {
+            double[] row = l[i];
+            for (int v = 0; v < c; v++) {
+                axpy(xs[v][i], row, y[v], 0, i + 1);
+            }
+        }
+        double[][] z = new double[c][n];
+        for (int i = 0; i < n; i++) {
+            double[] row = l[i];
+            for (int v = 0; v < c; v++) {
+                double[] yv = y[v];
+                double s0 = 0;
+                double s1 = 0;
+                int k = 0;
+                for (; k + 1 <= i; k += 2) {
+                    s0 += row[k] * yv[k];
+                    s1 += row[k + 1] * yv[k + 1];
+                }
+                for (; k <= i; k++) {
+                    s0 += row[k] * yv[k];
+                }
+                z[v][i] = s0 + s1;
+            }
+        }
+        return z;
     }
 
     /** Smallest diagonal entry of L (its square bounds the smallest eigenvalue from above). */

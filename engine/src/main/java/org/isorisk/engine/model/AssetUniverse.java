@@ -57,6 +57,42 @@ public record AssetUniverse(List<String> assets, double[] expectedReturns, doubl
         return Checks.deepCopy(covariance);
     }
 
+    /**
+     * The lower triangle of the covariance by rows, row i holding entries 0..i: a fresh copy (half the size
+     * of {@link #covariance()}), e.g. to be factored in place.
+     */
+    public double[][] covarianceLowerRows() {
+        int n = covariance.length;
+        double[][] out = new double[n][];
+        for (int i = 0; i < n; i++) {
+            out[i] = java.util.Arrays.copyOf(covariance[i], i + 1);
+        }
+        return out;
+    }
+
+    /**
+     * {@code Σx} without copying the matrix, summed as {@code Σ_j x_j · (row j of Σ)} (the same order as
+     * {@code linalg.Dense.multiplySymmetric}); {@code x} is not modified.
+     */
+    public double[] covarianceTimes(double[] x) {
+        int n = covariance.length;
+        if (x.length != n) {
+            throw new IllegalArgumentException("vector of length " + x.length + " for " + n + " assets");
+        }
+        double[] y = new double[n];
+        for (int j = 0; j < n; j++) {
+            double xj = x[j];
+            if (xj == 0) {
+                continue;
+            }
+            double[] r = covariance[j];
+            for (int i = 0; i < n; i++) {
+                y[i] += xj * r[i];
+            }
+        }
+        return y;
+    }
+
     /** Covariance entry (i, j) without copying the matrix. */
     public double covariance(int i, int j) {
         return covariance[i][j];

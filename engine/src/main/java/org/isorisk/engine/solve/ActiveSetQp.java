@@ -4,6 +4,8 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import org.isorisk.engine.error.NoSolutionException;
+import org.isorisk.engine.linalg.Cholesky;
+import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.Relation;
 
 /**
@@ -35,6 +37,16 @@ final class ActiveSetQp {
     static final byte FIXED = 3;
 
     private static final int BLAND_AFTER = 3;
+
+    /**
+     * Free-set size from which the first factor of {@code Σ_FF} is computed by the blocked Cholesky
+     * factorisation ({@link Cholesky#factorRowsInPlace}) instead of one appended row at a time: the same
+     * O(k³/3) operations, but vectorised, cache-blocked and on {@code threads} threads.
+     */
+    static final int BLOCKED_MIN = 48;
+
+    /** Violation of a bound or row (relative to max(1, |limit|)) up to which a start point counts as feasible. */
+    static final double FEASIBLE = 1e-12;
 
 
     /**
@@ -71,6 +83,8 @@ final class ActiveSetQp {
     private final int m;
     private final double[][] s;
     private final int maxIterations;
+    private final int threads;
+    private final Cholesky full;
     private final double[] w;
     private final double[] g;
     private final byte[] st;
@@ -85,12 +99,14 @@ final class ActiveSetQp {
     private final double[] rowVal;
     private int iterations;
 
-    private ActiveSetQp(QpProblem p, Start start, int maxIterations) {
+    private ActiveSetQp(QpProblem p, Start start, int maxIterations, int threads, Cholesky full) {
         this.p = p;
         this.n = p.n;
         this.m = p.rows();
         this.s = p.sigma;
         this.maxIterations = maxIterations;
+        this.threads = Math.max(1, threads);
+        this.full = full != null && full.size() == p.n ? full : null;
         this.w = start.w().clone();
         this.st = start.state().clone();
         this.free = new int[n];
@@ -104,28 +120,91 @@ final class ActiveSetQp {
         this.rowVal = new double[m];
     }
 
-    /** Solves from the start given. */
+    /** Solves from the start given (the first factor on one thread). */
     static Result solve(QpProblem p, Start start, int maxIterations) {
-        ActiveSetQp qp = new ActiveSetQp(p, start, maxIterations);
+        return solve(p, start, maxIterations, 1, null);
+    }
+
+    /**
+     * Solves from the start given.
+     *
+     * @param threads threads for the first factor of {@code Σ_FF}
+     * @param full    the Cholesky factor of the whole Σ, reused when every variable starts free; null when none
+     */
+    static Result solve(QpProblem p, Start start, int maxIterations, int threads, Cholesky full) {
+        ActiveSetQp qp = new ActiveSetQp(p, start, maxIterations, threads, full);
         qp.initialise(start.rowActive());
         return qp.run();
     }
 
     /**
-     * The minimiser of {@code w'Σw} over the working set alone (every constraint in it held with equality, all
-     * others ignored), for warm starts: null when the working set is inconsistent or Σ_FF is not positive definite.
+     * Solves starting at the minimiser of a guessed working set instead of at a vertex. The guess's minimiser
+     * (every constraint in it held with equality, all others ignored) is computed; when it is feasible the
+     * method continues from it, on the factor already built. When it is not, the bounds and inequality rows it
+     * violates join the working set (the set only grows) and the minimiser is computed again, at most
+     * {@code rounds} times. This is the first half of a primal-dual active-set step for bound constraints
+     * (Hintermüller, Ito &amp; Kunisch, SIAM J. Optim. 13(3), 2002; from memory) without its release step:
+     * releasing constraints whose multipliers have the wrong sign is left to the primal method, which keeps
+     * its exactness and termination. When most assets are free at the optimum (the minimum-variance portfolio
+     * of a dense factor model with loose caps) the first guess, everything free, is already optimal: one blocked
+     * factorisation replaces hundreds of one-asset iterations.
+     *
+     * @param guess   working set to try first ({@code w} only supplies the values of variables at bounds)
+     * @param threads threads for each factor of {@code Σ_FF}
+     * @param full    the Cholesky factor of the whole Σ, reused when every variable is free; null when none
+     * @param rounds  at most this many minimisers are tried
+     * @return the solution, or null when no round gave a feasible point or a working set was inconsistent
+     *         (dependent equalities, Σ_FF not positive definite): the caller then starts from a vertex, where
+     *         those cases are diagnosed
      */
-    static double[] workingSetMinimiser(QpProblem p, Start start) {
-        ActiveSetQp qp = new ActiveSetQp(p, start, 1);
-        try {
-            qp.initialise(start.rowActive());
-        } catch (NoSolutionException e) {
-            return null;
+    static Result solveFromMinimiser(QpProblem p, Start guess, int maxIterations, int threads, Cholesky full,
+                                     int rounds) {
+        byte[] state = guess.state().clone();
+        boolean[] rows = guess.rowActive().clone();
+        for (int round = 0; round < rounds; round++) {
+            ActiveSetQp qp = new ActiveSetQp(p, new Start(guess.w(), state, rows), maxIterations, threads, full);
+            try {
+                qp.initialise(rows);
+            } catch (NoSolutionException e) {
+                return null;
+            }
+            if (!qp.recover()) {
+                return null;
+            }
+            if (p.violation(qp.w) <= FEASIBLE) {
+                return qp.run();
+            }
+            boolean grew = false;
+            for (int i = 0; i < p.n; i++) {
+                state[i] = qp.st[i];
+                if (qp.st[i] != FREE) {
+                    continue;
+                }
+                if (qp.w[i] < p.lo[i] - FEASIBLE * Math.max(1, Math.abs(p.lo[i]))) {
+                    state[i] = LOWER;
+                    grew = true;
+                } else if (qp.w[i] > p.hi[i] + FEASIBLE * Math.max(1, Math.abs(p.hi[i]))) {
+                    state[i] = UPPER;
+                    grew = true;
+                }
+            }
+            for (int r = 0; r < p.rows(); r++) {
+                rows[r] = qp.rowAct[r];
+                if (p.rel[r] == Relation.EQUAL || qp.rowAct[r]) {
+                    continue;
+                }
+                double d = qp.rowVal[r] - p.b[r];
+                double tol = FEASIBLE * Math.max(1, Math.abs(p.b[r]));
+                if ((p.rel[r] == Relation.AT_MOST && d > tol) || (p.rel[r] == Relation.AT_LEAST && d < -tol)) {
+                    rows[r] = true;
+                    grew = true;
+                }
+            }
+            if (!grew) {
+                return null;
+            }
         }
-        if (!qp.recover()) {
-            return null;
-        }
-        return qp.w.clone();
+        return null;
     }
 
     private void initialise(boolean[] wanted) {
@@ -141,11 +220,14 @@ final class ActiveSetQp {
                 st[i] = FREE;
             }
         }
+        int[] initial = new int[n];
+        int count = 0;
         for (int i = 0; i < n; i++) {
             if (st[i] == FREE) {
-                addFree(i);
+                initial[count++] = i;
             }
         }
+        addFreeAll(initial, count);
         // equalities first: they must all be in the working set
         for (int pass = 0; pass < 2; pass++) {
             for (int r = 0; r < m; r++) {
@@ -534,6 +616,61 @@ final class ActiveSetQp {
 
     // ---- factor updates ------------------------------------------------------------------------------------
 
+    /**
+     * Makes the first free set (no active rows yet): for a large set the factor of {@code Σ_FF} by the blocked
+     * Cholesky factorisation, or copied from the factor of the whole Σ when every variable is free; row by row
+     * otherwise. The pivots are checked as {@link #addFree} checks them.
+     */
+    private void addFreeAll(int[] idx, int count) {
+        if (count < BLOCKED_MIN || ma > 0 || k > 0) {
+            for (int t = 0; t < count; t++) {
+                addFree(idx[t]);
+            }
+            return;
+        }
+        double[][] rows = new double[count][];
+        if (full != null && count == n) {
+            for (int t = 0; t < count; t++) {
+                rows[t] = full.copyOfRow(t); // idx is 0..n−1 in order
+            }
+        } else {
+            for (int t = 0; t < count; t++) {
+                double[] si = s[idx[t]];
+                double[] r = new double[t + 1];
+                for (int u = 0; u <= t; u++) {
+                    r[u] = si[idx[u]];
+                }
+                rows[t] = r;
+            }
+            if (!Cholesky.factorRowsInPlace(rows, threads)) {
+                // not positive definite: the row-by-row method finds and names the failing pivot
+                for (int t = 0; t < count; t++) {
+                    addFree(idx[t]);
+                }
+                return;
+            }
+        }
+        for (int t = 0; t < count; t++) {
+            int i = idx[t];
+            double d = rows[t][t];
+            if (!(d * d > 1e-14 * Math.abs(s[i][i])) || !(s[i][i] > 0)) {
+                throw notPositiveDefinite(d * d, i);
+            }
+            l[t] = rows[t];
+            free[t] = i;
+            pos[i] = t;
+        }
+        k = count;
+    }
+
+    private static NoSolutionException notPositiveDefinite(double pivot, int i) {
+        return new NoSolutionException(NoSolutionException.Reason.NOT_CONVEX, String.format(Locale.ROOT,
+                "the covariance matrix is not positive definite on the assets left free (pivot %.3g for asset "
+                        + "number %d), so the minimum-variance portfolio is not unique; fix: remove one of a "
+                        + "perfectly correlated pair, or repair the matrix (isorisk check --repair)", pivot, i + 1),
+                List.of());
+    }
+
     /** Appends variable i to the free set: a new last row of L and of Y. */
     private void addFree(int i) {
         double[] row = new double[k + 1];
@@ -551,11 +688,7 @@ final class ActiveSetQp {
         }
         double d2 = si[i] - ss;
         if (!(d2 > 1e-14 * Math.abs(si[i])) || !(si[i] > 0)) {
-            throw new NoSolutionException(NoSolutionException.Reason.NOT_CONVEX, String.format(Locale.ROOT,
-                    "the covariance matrix is not positive definite on the assets left free (pivot %.3g for asset "
-                            + "number %d), so the minimum-variance portfolio is not unique; fix: remove one of a "
-                            + "perfectly correlated pair, or repair the matrix (isorisk check --repair)", d2, i + 1),
-                    List.of());
+            throw notPositiveDefinite(d2, i);
         }
         double d = Math.sqrt(d2);
         row[k] = d;
@@ -678,65 +811,15 @@ final class ActiveSetQp {
         }
     }
 
-    /** Condition number of {@code Σ_FF = L L'}, estimated by power and inverse iteration with the factor. */
+    /**
+     * Condition number of {@code Σ_FF = L L'} from the factor as updated (exact up to 64 free assets, else the
+     * Lanczos estimate of {@link Spectrum#ofFactor} to {@link Spectrum#CONDITION_ACCURACY}).
+     */
     private double condition() {
         if (k == 0) {
             return 1;
         }
-        double big = power(false);
-        double small = 1 / power(true);
-        return big / small;
-    }
-
-    private double power(boolean inverse) {
-        double[] x = new double[k];
-        for (int t = 0; t < k; t++) {
-            x[t] = 1.0 + 0.37 * Math.sin(1.0 + t);
-        }
-        double lambda = 0;
-        for (int it = 0; it < 60; it++) {
-            double nrm = 0;
-            for (double v : x) {
-                nrm += v * v;
-            }
-            nrm = Math.sqrt(nrm);
-            for (int t = 0; t < k; t++) {
-                x[t] /= nrm;
-            }
-            double[] yv = x.clone();
-            if (inverse) {
-                forward(yv);
-                backward(yv);
-            } else {
-                // y = L (L' x)
-                double[] u = new double[k];
-                for (int t = 0; t < k; t++) {
-                    double[] lt = l[t];
-                    double xt = x[t];
-                    for (int c = 0; c <= t; c++) {
-                        u[c] += lt[c] * xt;
-                    }
-                }
-                for (int t = 0; t < k; t++) {
-                    double[] lt = l[t];
-                    double v = 0;
-                    for (int c = 0; c <= t; c++) {
-                        v += lt[c] * u[c];
-                    }
-                    yv[t] = v;
-                }
-            }
-            double next = 0;
-            for (int t = 0; t < k; t++) {
-                next += x[t] * yv[t];
-            }
-            x = yv;
-            if (it > 5 && Math.abs(next - lambda) <= 1e-4 * Math.abs(next)) {
-                return next;
-            }
-            lambda = next;
-        }
-        return lambda;
+        return Spectrum.ofFactor(Cholesky.ofRows(Arrays.copyOf(l, k)), Spectrum.CONDITION_ACCURACY).conditionNumber();
     }
 
     /** Householder QR of the k × ma matrix whose columns are {@code cols[0..ma)}, for least squares. */

@@ -70,8 +70,7 @@ final class ClosedForm {
     static Solution assemble(Factored f, double[] w, List<LinearConstraint> rows, double[] nu, SolverSettings settings,
                              List<String> notes) {
         int n = w.length;
-        double[][] sigma = f.sigma();
-        double[] sw = Kkt.multiply(sigma, w);
+        double[] sw = f.sigmaTimes(w);
         double var = 0;
         for (int i = 0; i < n; i++) {
             var += w[i] * sw[i];

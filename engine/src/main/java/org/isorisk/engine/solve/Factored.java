@@ -28,14 +28,18 @@ public final class Factored {
     private static final int MEMO_LIMIT = 64;
 
     private final AssetUniverse universe;
-    private final double[][] sigma;
     private final Cholesky chol;
-    private final Spectrum spectrum;
+    private volatile Spectrum spectrum;
+    /** The spectrum being estimated on another thread ({@link #ofOverlapped}); null once known or when none. */
+    private final java.util.concurrent.FutureTask<Spectrum> pending;
+    /** The last product {@code {w, Σw}}, so that the certificate of the same weights does not compute it twice. */
+    private volatile double[][] lastProduct;
     private final Map<Key, double[]> memo = new ConcurrentHashMap<>();
 
-    private Factored(AssetUniverse universe, double[][] sigma, Cholesky chol, Spectrum spectrum) {
+    private Factored(AssetUniverse universe, Cholesky chol, Spectrum spectrum,
+                     java.util.concurrent.FutureTask<Spectrum> pending) {
         this.universe = universe;
-        this.sigma = sigma;
+        this.pending = pending;
         this.chol = chol;
         this.spectrum = spectrum;
     }
@@ -57,16 +61,47 @@ public final class Factored {
      * @throws NoSolutionException (NOT_CONVEX) as {@link #of(AssetUniverse)}
      */
     public static Factored of(AssetUniverse u, SolverSettings settings) {
-        double[][] sigma = u.covariance();
-        Cholesky chol = Cholesky.factor(sigma, settings.threads());
-        if (chol == null) {
+        // Only the lower triangle is copied, and factored in place; products with Σ read the universe's own rows.
+        double[][] rows = u.covarianceLowerRows();
+        if (!Cholesky.factorRowsInPlace(rows, settings.threads())) {
+            double[][] sigma = u.covariance();
             throw notPositiveDefinite(u, sigma, Spectrum.of(sigma, null));
         }
-        Spectrum sp = Spectrum.of(sigma, chol);
-        if (!(sp.smallest() > SINGULAR * sp.largest())) {
-            throw notPositiveDefinite(u, sigma, sp);
+        Cholesky chol = Cholesky.ofRows(rows);
+        Spectrum sp = u.size() <= Spectrum.EXACT_LIMIT ? Spectrum.exact(u.covariance())
+                : Spectrum.ofFactor(chol, Spectrum.CONDITION_ACCURACY);
+        return new Factored(u, chol, checked(u, sp), null);
+    }
+
+    /**
+     * As {@link #of(AssetUniverse, SolverSettings)}, but with two or more threads the condition estimate runs on
+     * another thread while the caller solves with the factor; {@link #spectrum()} waits for it, and it is there,
+     * not here, that a Σ singular to working precision is refused (NOT_CONVEX). For the closed form when nothing
+     * binds, whose solve and products overlap the estimate.
+     */
+    static Factored ofOverlapped(AssetUniverse u, SolverSettings settings) {
+        if (settings.threads() < 2 || u.size() <= Spectrum.EXACT_LIMIT) {
+            return of(u, settings);
         }
-        return new Factored(u, sigma, chol, sp);
+        double[][] rows = u.covarianceLowerRows();
+        if (!Cholesky.factorRowsInPlace(rows, settings.threads())) {
+            double[][] sigma = u.covariance();
+            throw notPositiveDefinite(u, sigma, Spectrum.of(sigma, null));
+        }
+        Cholesky chol = Cholesky.ofRows(rows);
+        java.util.concurrent.FutureTask<Spectrum> task = new java.util.concurrent.FutureTask<>(
+                () -> Spectrum.ofFactor(chol, Spectrum.CONDITION_ACCURACY));
+        Thread t = new Thread(task, "isorisk-condition-estimate");
+        t.setDaemon(true);
+        t.start();
+        return new Factored(u, chol, null, task);
+    }
+
+    private static Spectrum checked(AssetUniverse u, Spectrum sp) {
+        if (!(sp.smallest() > SINGULAR * sp.largest())) {
+            throw notPositiveDefinite(u, u.covariance(), sp);
+        }
+        return sp;
     }
 
     static NoSolutionException notPositiveDefinite(AssetUniverse u, double[][] sigma, Spectrum sp) {
@@ -109,17 +144,45 @@ public final class Factored {
         return universe;
     }
 
-    /** The covariance (shared, do not modify). */
-    double[][] sigma() {
-        return sigma;
+    /**
+     * {@code Σw} from the universe's covariance, not copied ({@code w} not modified); the last product is
+     * remembered, so that the certificate of the same weights does not compute it again.
+     */
+    double[] sigmaTimes(double[] w) {
+        double[][] last = lastProduct;
+        if (last != null && Arrays.equals(last[0], w)) {
+            return last[1].clone();
+        }
+        double[] sw = universe.covarianceTimes(w);
+        lastProduct = new double[][] {w.clone(), sw.clone()};
+        return sw;
     }
 
     public Cholesky cholesky() {
         return chol;
     }
 
+    /**
+     * Extreme eigenvalues of Σ: exact up to {@link Spectrum#EXACT_LIMIT} assets, above it the Lanczos estimate
+     * to {@link Spectrum#CONDITION_ACCURACY} (each to about 1 %, inside the spectrum), which is what the
+     * certificate's condition number and the singularity check need.
+     */
     public Spectrum spectrum() {
-        return spectrum;
+        Spectrum sp = spectrum;
+        if (sp != null) {
+            return sp;
+        }
+        try {
+            sp = pending.get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted while estimating the condition number", e);
+        } catch (java.util.concurrent.ExecutionException e) {
+            throw new IllegalStateException("the condition estimate failed", e.getCause());
+        }
+        sp = checked(universe, sp);
+        spectrum = sp;
+        return sp;
     }
 
     /** Solves {@code Σ x = b}; {@code b} is not modified. */

@@ -37,7 +37,7 @@ final class InteriorShortcut {
         Factored f;
         Solution cf;
         try {
-            f = Factored.of(u, r.settings());
+            f = Factored.ofOverlapped(u, r.settings());
             cf = Allocator.closedForm(f, equalities, r.objective(), r);
         } catch (NoSolutionException e) {
             return null; // let the bounded method diagnose it with the whole mandate in view
@@ -84,7 +84,7 @@ final class InteriorShortcut {
                 mult.add(new Multiplier("upper:" + u.assets().get(i), 0, 0, false));
             }
         }
-        Certificate cert = Kkt.certify(u.covariance(), w, certRows, prices, m.lower(), m.upper(), new double[n],
+        Certificate cert = Kkt.certifyProduct(f.sigmaTimes(w), w, certRows, prices, m.lower(), m.upper(), new double[n],
                 new double[n], cf.certificate().conditionNumber(), r.settings().closedFormTolerance(), true);
         List<String> notes = new ArrayList<>();
         for (String note : cf.notes()) {

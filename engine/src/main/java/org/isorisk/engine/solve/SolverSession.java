@@ -42,6 +42,8 @@ public final class SolverSession {
     private final String[] upperNames;
     private boolean mandateChecked;
     private boolean convexChecked;
+    /** Cholesky factor of Σ from the convexity check, reused by solves that start with every asset free. */
+    private Cholesky factor;
     private ReturnRange range;
 
     SolverSession(AssetUniverse universe, Mandate mandate, SolverSettings settings) {
@@ -99,21 +101,52 @@ public final class SolverSession {
         }
         ensureConvex();
         QpProblem p = problem(target);
-        ActiveSetQp.Start start = warmStart == null ? null : warmStart(p, warmStart, target);
-        ActiveSetQp.Result res;
-        if (start != null) {
+        ActiveSetQp.Result res = null;
+        if (warmStart != null) {
             try {
-                res = ActiveSetQp.solve(p, start, settings.maxIterations());
+                // first the previous solution's active set, continued from its own minimiser when feasible
+                res = ActiveSetQp.solveFromMinimiser(p, previousActiveSet(p, warmStart), settings.maxIterations(),
+                        settings.threads(), factor, 1);
+                if (res == null) {
+                    ActiveSetQp.Start start = warmStart(p, warmStart, target);
+                    if (start != null) {
+                        res = solveFrom(p, start);
+                    }
+                }
             } catch (NoSolutionException e) {
                 if (e.reason() != NoSolutionException.Reason.CONSTRAINT_QUALIFICATION) {
                     throw e;
                 }
-                res = ActiveSetQp.solve(p, coldStart(p), settings.maxIterations());
+                res = null;
             }
-        } else {
-            res = ActiveSetQp.solve(p, coldStart(p), settings.maxIterations());
+        }
+        if (res == null) {
+            res = coldSolve(p);
         }
         return toSolution(p, res, target, List.of());
+    }
+
+    /**
+     * A solve without a previous solution: from the minimiser with every asset free (the closed form on the
+     * equality rows), adding the bounds and rows it violates in blocks ({@link ActiveSetQp#solveFromMinimiser});
+     * when that finds no feasible start, from a vertex of the feasible set.
+     */
+    private ActiveSetQp.Result coldSolve(QpProblem p) {
+        ActiveSetQp.Result res = ActiveSetQp.solveFromMinimiser(p, allFree(p), settings.maxIterations(),
+                settings.threads(), factor, GUESS_ROUNDS);
+        return res != null ? res : solveFrom(p, coldStart(p));
+    }
+
+    /** Rounds of {@link ActiveSetQp#solveFromMinimiser} tried before the vertex start. */
+    static final int GUESS_ROUNDS = 6;
+
+    private ActiveSetQp.Result solveFrom(QpProblem p, ActiveSetQp.Start start) {
+        return ActiveSetQp.solve(p, start, settings.maxIterations(), settings.threads(), factor);
+    }
+
+    /** Every variable free (those with equal bounds are fixed by the method), only the equality rows active. */
+    private static ActiveSetQp.Start allFree(QpProblem p) {
+        return new ActiveSetQp.Start(new double[p.n], new byte[p.n], new boolean[p.rows()]);
     }
 
     /**
@@ -157,7 +190,8 @@ public final class SolverSession {
         if (convexChecked) {
             return;
         }
-        if (Cholesky.factor(sigma) == null) {
+        factor = Cholesky.factor(sigma, settings.threads());
+        if (factor == null) {
             throw Factored.notPositiveDefinite(universe, sigma, Spectrum.of(sigma));
         }
         convexChecked = true;
@@ -245,36 +279,12 @@ public final class SolverSession {
     }
 
     /**
-     * A start from a previous solution: first its active set's own minimiser for this problem; failing that, its
+     * A start from a previous solution when its active set's own minimiser for this problem is not feasible: its
      * weights when they are still feasible; failing that, for a new return target, the blend of its weights with
      * the end of the achievable range that meets the target exactly. Null when none applies.
      */
     private ActiveSetQp.Start warmStart(QpProblem p, Solution prev, Double target) {
-        if (!prev.assets().equals(assets)) {
-            throw new IllegalArgumentException("the warm start solution is over other assets");
-        }
         double[] w0 = prev.weights();
-        Map<String, Boolean> binding = new HashMap<>();
-        for (Multiplier mu : prev.multipliers()) {
-            binding.put(mu.constraint(), mu.binding());
-        }
-        byte[] state = new byte[n];
-        for (int i = 0; i < n; i++) {
-            if (Boolean.TRUE.equals(binding.get(lowerNames[i])) && Double.isFinite(p.lo[i])) {
-                state[i] = ActiveSetQp.LOWER;
-            } else if (Boolean.TRUE.equals(binding.get(upperNames[i])) && Double.isFinite(p.hi[i])) {
-                state[i] = ActiveSetQp.UPPER;
-            }
-        }
-        boolean[] rows = new boolean[p.rows()];
-        for (int r = 0; r < p.rows(); r++) {
-            rows[r] = p.rel[r] == Relation.EQUAL || Boolean.TRUE.equals(binding.get(p.names[r]));
-        }
-        ActiveSetQp.Start guess = new ActiveSetQp.Start(w0, state, rows);
-        double[] x0 = ActiveSetQp.workingSetMinimiser(p, guess);
-        if (x0 != null && p.violation(x0) <= 1e-12) {
-            return new ActiveSetQp.Start(x0, state, rows);
-        }
         if (p.violation(w0) <= 1e-12) {
             return tightStart(p, w0, w0);
         }
@@ -301,6 +311,31 @@ public final class SolverSession {
             return tightStart(p, x, theta == 1 ? end : w0, end);
         }
         return null;
+    }
+
+    /** The working set of a previous solution: its binding bounds and rows, and every equality. */
+    private ActiveSetQp.Start previousActiveSet(QpProblem p, Solution prev) {
+        if (!prev.assets().equals(assets)) {
+            throw new IllegalArgumentException("the warm start solution is over other assets");
+        }
+        double[] w0 = prev.weights();
+        Map<String, Boolean> binding = new HashMap<>();
+        for (Multiplier mu : prev.multipliers()) {
+            binding.put(mu.constraint(), mu.binding());
+        }
+        byte[] state = new byte[n];
+        for (int i = 0; i < n; i++) {
+            if (Boolean.TRUE.equals(binding.get(lowerNames[i])) && Double.isFinite(p.lo[i])) {
+                state[i] = ActiveSetQp.LOWER;
+            } else if (Boolean.TRUE.equals(binding.get(upperNames[i])) && Double.isFinite(p.hi[i])) {
+                state[i] = ActiveSetQp.UPPER;
+            }
+        }
+        boolean[] rows = new boolean[p.rows()];
+        for (int r = 0; r < p.rows(); r++) {
+            rows[r] = p.rel[r] == Relation.EQUAL || Boolean.TRUE.equals(binding.get(p.names[r]));
+        }
+        return new ActiveSetQp.Start(w0, state, rows);
     }
 
     /** A start at x whose working set holds the constraints tight at every one of {@code witnesses}. */
@@ -486,7 +521,7 @@ public final class SolverSession {
         }
         ensureConvex();
         QpProblem h = homogenised(rf);
-        ActiveSetQp.Result res = ActiveSetQp.solve(h, coldStart(h), settings.maxIterations());
+        ActiveSetQp.Result res = coldSolve(h);
         double[] y = res.w();
         double kappa = 0;
         for (double v : y) {
@@ -505,7 +540,7 @@ public final class SolverSession {
         double m = dot(mu, w);
         QpProblem p = problem(m);
         ActiveSetQp.Start start = tightStart(p, w, w);
-        ActiveSetQp.Result fin = ActiveSetQp.solve(p, start, settings.maxIterations());
+        ActiveSetQp.Result fin = solveFrom(p, start);
         double vol = Math.sqrt(Math.max(0, quadratic(fin.w())));
         String note = String.format(Locale.ROOT, "Tangency portfolio for a risk-free rate of %s: the allowed portfolio "
                         + "with the highest Sharpe ratio (%.4f), found by the homogenised quadratic program and "

@@ -2,8 +2,10 @@ package org.isorisk.engine.linalg;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.SplittableRandom;
@@ -208,6 +210,60 @@ class CholeskyTests {
     }
 
     /** A random symmetric positive definite matrix G G'/n + δ I, G uniform in [−1, 1]. */
+    @Test
+    void factoringRowsInPlaceGivesTheSameFactorAndItsProductIsTheMatrix() {
+        for (int n : new int[] {5, 70, Cholesky.PARALLEL_MIN + 16}) {
+            double[][] a = spd(n, 41 + n, 0.05);
+            double[][] rows = new double[n][];
+            for (int i = 0; i < n; i++) {
+                rows[i] = java.util.Arrays.copyOf(a[i], i + 1);
+            }
+            assertTrue(Cholesky.factorRowsInPlace(rows, 2));
+            Cholesky whole = Cholesky.factor(a, 2);
+            for (int i = 0; i < n; i++) {
+                for (int j = 0; j <= i; j++) {
+                    assertEquals(whole.factorEntry(i, j), rows[i][j], 0.0, "same algorithm, same entry " + i + "," + j);
+                }
+            }
+            Cholesky wrapped = Cholesky.ofRows(rows);
+            double[] x = new double[n];
+            for (int i = 0; i < n; i++) {
+                x[i] = Math.sin(i + 1.0);
+            }
+            // Reference: Commons Math's matrix-vector product with the matrix itself.
+            double[] ref = new org.apache.commons.math3.linear.Array2DRowRealMatrix(a).operate(x);
+            double[] got = wrapped.multiply(x);
+            double scale = 0;
+            for (double v : ref) {
+                scale = Math.max(scale, Math.abs(v));
+            }
+            for (int i = 0; i < n; i++) {
+                assertEquals(ref[i], got[i], 1e-12 * n * Math.max(1, scale), "L L'x entry " + i);
+            }
+            double[] x2 = new double[n];
+            for (int i = 0; i < n; i++) {
+                x2[i] = 1.0 / (i + 2.0);
+            }
+            double[][] both = wrapped.multiply(new double[][] {x, x2});
+            double[] ref2 = new org.apache.commons.math3.linear.Array2DRowRealMatrix(a).operate(x2); // Commons Math
+            for (int i = 0; i < n; i++) {
+                assertEquals(got[i], both[0][i], 1e-12 * n * Math.max(1, scale), "block product, first vector " + i);
+                assertEquals(ref2[i], both[1][i], 1e-12 * n * Math.max(1, scale), "block product, second vector " + i);
+            }
+            double[] back = wrapped.solve(got);
+            for (int i = 0; i < n; i++) {
+                assertEquals(x[i], back[i], 1e-8, "solve undoes multiply, entry " + i);
+            }
+        }
+    }
+
+    @Test
+    void aMatrixThatIsNotPositiveDefiniteIsReportedWhenFactoredInPlace() {
+        double[][] rows = {{1}, {2, 1}}; // [[1, 2], [2, 1]] has eigenvalues 3 and −1 (by hand)
+        assertFalse(Cholesky.factorRowsInPlace(rows, 1));
+        assertThrows(IllegalArgumentException.class, () -> Cholesky.ofRows(new double[][] {{1}, {0.5, 0}}));
+    }
+
     static double[][] spd(int n, long seed, double delta) {
         SplittableRandom r = new SplittableRandom(seed);
         double[][] g = new double[n][n];
