@@ -119,13 +119,18 @@ class BenchTests {
 
     @Test
     void theCriticalLineVerdictAppliesIssueThreesBudgetsAtFiveHundredAndTwoThousandOnly() {
-        assertEquals("met", CriticalLineCase.verdict(500, 0.19, 1L << 30, 1e-12));
-        assertEquals("MISSED", CriticalLineCase.verdict(500, 0.21, 1L << 20, 1e-12));
-        assertEquals("MISSED", CriticalLineCase.verdict(500, 0.1, 1L << 20, 1e-8));
-        assertEquals("met", CriticalLineCase.verdict(2000, 4.9, (2L << 30) - 1, 1e-12));
-        assertEquals("MISSED", CriticalLineCase.verdict(2000, 4.9, 2L << 30, 1e-12));
-        assertEquals("MISSED", CriticalLineCase.verdict(2000, 5.1, 1L << 20, 1e-12));
-        assertEquals("-", CriticalLineCase.verdict(1000, 100, 1L << 40, 1));
+        HeapProbe.Report fits = new HeapProbe.Report(true, (2L << 30) - 1, 1L << 28, 40, 0, 3.0, "");
+        HeapProbe.Report full = new HeapProbe.Report(true, 2L << 30, 1L << 30, 40, 2, 3.0, "");
+        HeapProbe.Report failed = new HeapProbe.Report(false, 0, 0, 0, 0, Double.NaN, "OutOfMemoryError");
+        assertEquals("met", CriticalLineCase.verdict(500, 0.19, null, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(500, 0.21, null, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(500, 0.1, null, 1e-8));
+        assertEquals("met", CriticalLineCase.verdict(2000, 4.9, fits, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(2000, 4.9, full, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(2000, 4.9, failed, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(2000, 4.9, null, 1e-12));
+        assertEquals("MISSED", CriticalLineCase.verdict(2000, 5.1, fits, 1e-12));
+        assertEquals("-", CriticalLineCase.verdict(1000, 100, failed, 1));
     }
 
     @Test
