@@ -79,11 +79,11 @@ final class QpCase implements BenchCase {
                     () -> session.solve(Objective.minimumVariance()).variance());
             AllocationRequest request = new AllocationRequest(u, m, Objective.minimumVariance(), Method.NUMERICAL,
                     settings);
-            Timing.Result checked = Timing.measure(options.warmup(), Math.max(3, reps / 3),
+            Timing.Result checked = Timing.measure(options.warmup(), reps,
                     () -> Allocator.solve(request).variance());
             AllocationRequest auto = request.withMethod(Method.AUTO);
             Solution autoSolution = Allocator.solve(auto);
-            Timing.Result autoTime = Timing.measure(options.warmup(), Math.max(3, reps / 3),
+            Timing.Result autoTime = Timing.measure(options.warmup(), reps,
                     () -> Allocator.solve(auto).variance());
             Timing.Result sweep = Timing.measure(options.warmup(), n >= 1000 ? 3 : 5, () -> {
                 Solution p = s;
