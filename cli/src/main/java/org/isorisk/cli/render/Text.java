@@ -44,12 +44,23 @@ public final class Text {
         return String.format(Locale.ROOT, "%,.0f", v);
     }
 
-    /** {@code text} wrapped at {@link #WIDTH}, each line starting with {@code first} then {@code rest}. */
+    /**
+     * {@code text} wrapped at {@link #WIDTH}, each line starting with {@code first} then {@code rest}. A percent
+     * sign stays on the line of the number before it ("0.01 %" is never split).
+     */
     public static String wrap(String text, String first, String rest) {
         StringBuilder out = new StringBuilder();
         StringBuilder line = new StringBuilder();
         String prefix = first;
+        List<String> words = new ArrayList<>();
         for (String word : text.strip().split("\\s+")) {
+            if (word.startsWith("%") && !words.isEmpty()) {
+                words.set(words.size() - 1, words.get(words.size() - 1) + " " + word);
+            } else {
+                words.add(word);
+            }
+        }
+        for (String word : words) {
             if (line.length() > 0 && prefix.length() + line.length() + 1 + word.length() > WIDTH) {
                 out.append(prefix).append(line).append('\n');
                 prefix = rest;
