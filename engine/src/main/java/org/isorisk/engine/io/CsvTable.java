@@ -68,6 +68,17 @@ public record CsvTable(SourceFile source, List<String> header, int headerRow, Li
      */
     public double number(CsvRow row, int column, String asset) {
         String text = row.cell(column);
+        double fast = Decimals.fast(text);
+        if (!Double.isNaN(fast)) {
+            return fast;
+        }
+        String t = text == null ? "" : text.strip();
+        if (Decimals.plain(t)) {
+            double v = Double.parseDouble(t);
+            if (Double.isFinite(v)) {
+                return v;
+            }
+        }
         NumberText.Problem p = NumberText.problem(text);
         if (p != null) {
             InputException.Builder b = error(p.problem()).row(row.number()).column(header.get(column)).value(text)

@@ -1,8 +1,8 @@
 package org.isorisk.engine.io;
 
 /**
- * Exact fast reading of the commonest numeric cell, for large tables: {@code [-]digits[.digits]} with at most 15
- * significant digits. The digits form an integer m below 2^53 and 10^k (k ≤ 22) is exact, so {@code m / 10^k} is
+ * Exact fast reading of the commonest numeric cell, for large tables: {@code [-]digits[.digits][e[-]digits]} with
+ * at most 15 significant digits. The digits form an integer m below 2^53 and 10^k (k ≤ 22) is exact, so {@code m / 10^k} is
  * one correctly rounded operation and equals what {@link Double#parseDouble} returns (Clinger 1990, "How to read
  * floating point numbers accurately", PLDI). Anything else goes to {@link NumberText}, which judges it.
  */
@@ -19,7 +19,12 @@ final class Decimals {
         }
     }
 
-    /** The value of {@code s}, or NaN when it is not of the fast form (the caller then reads it the usual way). */
+    /**
+     * The value of {@code s}, or NaN when it is not of the fast form (the caller then reads it the usual way). The
+     * fast form also takes an exponent ({@code 1.25e-3}) when the digits' integer m stays below 2^53 and the net
+     * power of ten is at most 22 either way: then {@code m·10^p} or {@code m/10^p} is one correctly rounded
+     * operation too.
+     */
     static double fast(String s) {
         int n = s.length();
         int i = 0;
@@ -33,6 +38,7 @@ final class Decimals {
         int decimals = 0;
         boolean point = false;
         boolean any = false;
+        int exponent = 0;
         for (; i < n; i++) {
             char c = s.charAt(i);
             if (c >= '0' && c <= '9') {
@@ -49,14 +55,99 @@ final class Decimals {
                 }
             } else if (c == '.' && !point) {
                 point = true;
+            } else if ((c == 'e' || c == 'E') && any) {
+                exponent = exponent(s, i + 1);
+                if (exponent == Integer.MIN_VALUE) {
+                    return Double.NaN;
+                }
+                break;
             } else {
                 return Double.NaN;
             }
         }
-        if (!any || decimals > 22) {
+        if (!any) {
             return Double.NaN;
         }
-        double v = m / POW10[decimals];
+        int p = exponent - decimals;
+        double v;
+        if (p >= 0 && p < POW10.length) {
+            v = m * POW10[p];
+        } else if (p < 0 && -p < POW10.length) {
+            v = m / POW10[-p];
+        } else {
+            return Double.NaN;
+        }
         return negative ? -v : v;
+    }
+
+    /** The exponent written from {@code s[from]} on ([+-]digits, at most three), or MIN_VALUE when malformed. */
+    private static int exponent(String s, int from) {
+        int n = s.length();
+        int i = from;
+        boolean negative = false;
+        if (i < n && (s.charAt(i) == '-' || s.charAt(i) == '+')) {
+            negative = s.charAt(i) == '-';
+            i++;
+        }
+        if (i == n || n - i > 3) {
+            return Integer.MIN_VALUE;
+        }
+        int e = 0;
+        for (; i < n; i++) {
+            char c = s.charAt(i);
+            if (c < '0' || c > '9') {
+                return Integer.MIN_VALUE;
+            }
+            e = e * 10 + (c - '0');
+        }
+        return negative ? -e : e;
+    }
+
+    /**
+     * True when {@code s} is a plain decimal {@code [+-](digits[.digits]|.digits)[(e|E)[+-]digits]} with nothing
+     * around it, the one form {@link Double#parseDouble} is asked to read (a hand-written scan instead of a
+     * pattern match per cell).
+     */
+    static boolean plain(String s) {
+        int n = s.length();
+        int i = 0;
+        if (i < n && (s.charAt(i) == '-' || s.charAt(i) == '+')) {
+            i++;
+        }
+        int intDigits = 0;
+        while (i < n && isDigit(s.charAt(i))) {
+            i++;
+            intDigits++;
+        }
+        int fracDigits = 0;
+        if (i < n && s.charAt(i) == '.') {
+            i++;
+            while (i < n && isDigit(s.charAt(i))) {
+                i++;
+                fracDigits++;
+            }
+        }
+        if (intDigits == 0 && fracDigits == 0) {
+            return false;
+        }
+        if (i < n && (s.charAt(i) == 'e' || s.charAt(i) == 'E')) {
+            i++;
+            if (i < n && (s.charAt(i) == '-' || s.charAt(i) == '+')) {
+                i++;
+            }
+            int expDigits = 0;
+            while (i < n && isDigit(s.charAt(i))) {
+                i++;
+                expDigits++;
+            }
+            if (expDigits == 0) {
+                return false;
+            }
+        }
+        return i == n;
+    }
+
+    private static boolean isDigit(char c) {
+        return c >= '0' && c <= '9';
     }
 }
