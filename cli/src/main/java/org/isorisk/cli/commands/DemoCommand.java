@@ -66,8 +66,10 @@ public final class DemoCommand extends BaseCommand {
                     ? dir.resolve("policy.yaml") : null);
             PackCommand.Made made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), dir.resolve("pack.yaml"),
                     Units.DECIMAL, out, true, extra);
+            warn(made.warnings());
             out().print(made.summary());
             out().flush();
+            err().flush();
             return ExitCode.OK;
         } finally {
             delete(in);
