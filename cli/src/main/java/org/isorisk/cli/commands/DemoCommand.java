@@ -53,29 +53,46 @@ public final class DemoCommand extends BaseCommand {
     protected ExitCode execute() throws IOException {
         Path in = Files.createTempDirectory("isorisk-demo-inputs-");
         try {
-            Path dir = inputs(in);
+            Sources src = inputs(in);
+            Path dir = src.data();
             LoadedUniverse u = UniverseLoader.load(UniverseFiles.of(dir.resolve("expected_returns.csv"),
                     dir.resolve("covariance.csv")));
             List<PackFolder.Input> extra = new ArrayList<>();
-            if (Files.isRegularFile(dir.resolve("README.md"))) {
-                extra.add(new PackFolder.Input("sample-data-readme", dir.resolve("README.md")));
+            Path readme = src.packFile().resolveSibling("README.md");
+            if (Files.isRegularFile(readme)) {
+                extra.add(new PackFolder.Input("sample-data-readme", readme));
             }
             // An earlier pack in --out is the demo's own output and is replaced; PackFolder still refuses
             // any folder that is not an isorisk pack.
             PolicyOption policy = PolicyOption.of(Files.isRegularFile(dir.resolve("policy.yaml"))
                     ? dir.resolve("policy.yaml") : null);
-            PackCommand.Made made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), dir.resolve("pack.yaml"),
+            PackCommand.Made made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), src.packFile(),
                     Units.DECIMAL, out, true, extra);
+            warn(made.warnings());
             out().print(made.summary());
             out().flush();
+            err().flush();
             return ExitCode.OK;
         } finally {
             delete(in);
         }
     }
 
-    /** The folder to read: {@code --data}, with the bundled pack file when it has none, or the bundled sample. */
-    private Path inputs(Path temp) throws IOException {
+    /**
+     * Where the demo reads its files.
+     *
+     * @param data     the folder of the assumptions, the holdings and the policy: {@code --data} itself (so that
+     *                 errors name the user's files), or the extracted sample
+     * @param packFile the pack file; the scenario file it names is read beside it
+     */
+    private record Sources(Path data, Path packFile) {
+    }
+
+    /**
+     * The files to read: {@code --data}, with the bundled pack file (and beside it the folder's scenario file, or
+     * the bundled one) extracted into {@code temp} when the folder has no pack file; or the bundled sample.
+     */
+    private Sources inputs(Path temp) throws IOException {
         if (data != null) {
             for (String name : REQUIRED) {
                 if (!Files.isRegularFile(data.resolve(name))) {
@@ -84,25 +101,21 @@ public final class DemoCommand extends BaseCommand {
                 }
             }
             if (Files.isRegularFile(data.resolve("pack.yaml"))) {
-                return data;
+                return new Sources(data, data.resolve("pack.yaml"));
             }
-            for (String name : REQUIRED) {
-                Files.copy(data.resolve(name), temp.resolve(name));
-            }
-            for (String name : List.of("policy.yaml", "scenarios.yaml")) {
-                if (Files.isRegularFile(data.resolve(name))) {
-                    Files.copy(data.resolve(name), temp.resolve(name));
-                } else if (name.equals("scenarios.yaml")) {
-                    extract(name, temp); // the bundled pack file names it
-                }
+            // the bundled pack file names scenarios.yaml beside it
+            if (Files.isRegularFile(data.resolve("scenarios.yaml"))) {
+                Files.copy(data.resolve("scenarios.yaml"), temp.resolve("scenarios.yaml"));
+            } else {
+                extract("scenarios.yaml", temp);
             }
             extract("pack.yaml", temp);
-            return temp;
+            return new Sources(data, temp.resolve("pack.yaml"));
         }
         for (String name : SAMPLE_FILES) {
             extract(name, temp);
         }
-        return temp;
+        return new Sources(temp, temp.resolve("pack.yaml"));
     }
 
     private static void extract(String name, Path dir) throws IOException {

@@ -85,8 +85,10 @@ public final class PackCommand extends BaseCommand {
     protected ExitCode execute() {
         LoadedUniverse u = inputs.load(true);
         Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of());
+        warn(made.warnings());
         out().print(made.summary());
         out().flush();
+        err().flush();
         return ExitCode.OK;
     }
 
@@ -96,9 +98,13 @@ public final class PackCommand extends BaseCommand {
      * @param folder  the pack folder
      * @param content what the notebook says
      * @param files   number of files written (manifest included)
-     * @param summary the terminal summary (also written as {@code summary.txt})
+     * @param summary  the terminal summary (also written as {@code summary.txt})
+     * @param warnings the warnings of reading the inputs (assumptions, holdings), for stderr
      */
-    public record Made(Path folder, PackContent content, int files, String summary) {
+    public record Made(Path folder, PackContent content, int files, String summary, List<String> warnings) {
+        public Made {
+            warnings = List.copyOf(warnings);
+        }
     }
 
     /**
@@ -113,6 +119,7 @@ public final class PackCommand extends BaseCommand {
         LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
         Path policy = policyOption.path().orElse(null);
         List<String> notes = new ArrayList<>(u.warnings());
+        List<String> warnings = new ArrayList<>(u.warnings());
         Mandate mandate = loaded.mandate();
         Optional<Policy> pol = loaded.policy();
         // the policy's trading limits shape the trade list (PackRunner: the full move when they restrict nothing)
@@ -123,6 +130,7 @@ public final class PackCommand extends BaseCommand {
             PortfolioFile h = PortfolioReader.read(holdings, "holdings", u.assets(), units);
             weights = Optional.of(h.weights());
             notes.addAll(h.warnings());
+            warnings.addAll(h.warnings());
             sources.add(h.source());
             if (spec.fundSize().isEmpty() && h.marketValue().isPresent()) {
                 spec = spec.withFundSize(h.marketValue().getAsDouble());
@@ -189,7 +197,7 @@ public final class PackCommand extends BaseCommand {
         String summary = summary(o.content(), out, notes);
         folder.add("summary.txt", os -> os.write(summary.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
         PackFolder.Result r = folder.commit(out, force);
-        return new Made(r.folder(), o.content(), r.files().size(), summary);
+        return new Made(r.folder(), o.content(), r.files().size(), summary, warnings);
     }
 
     /** A copy of an input under {@code inputs/}, by its file name (prefixed with its role if two names clash). */

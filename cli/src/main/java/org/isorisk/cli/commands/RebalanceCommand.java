@@ -107,14 +107,37 @@ public final class RebalanceCommand extends BaseCommand {
             }
             size = mv;
         }
-        RebalanceRequest req = new RebalanceRequest(u.universe(), p.mandate(),
-                Holdings.ofWeights(assets, held.weights(), size), limits(p, assets), objective(p), null);
+        Holdings today;
+        try {
+            today = Holdings.ofWeights(assets, held.weights(), size);
+            today.alignedTo(u.universe(), p.mandate().budget()); // the engine's check, made here to name the file
+        } catch (InputException e) {
+            throw inFile(e, holdings); // e.g. weights that do not add up to the budget
+        }
+        RebalanceRequest req = new RebalanceRequest(u.universe(), p.mandate(), today, limits(p, assets), objective(p),
+                null);
         long t0 = System.nanoTime();
         RebalanceResult r = Rebalancer.rebalance(req);
         double millis = (System.nanoTime() - t0) / 1e6;
         Provenance prov = u.provenance().withInput(held.source());
         emit(new RebalanceView(r, prov, warnings, millis), output.out());
         return ExitCode.OK;
+    }
+
+    /** {@code e} with {@code file} as its file when it names none (a check made on values read from the file). */
+    static InputException inFile(InputException e, Path file) {
+        if (e.file().isPresent()) {
+            return e;
+        }
+        InputException.Builder b = InputException.of(e.problem()).file(file.toString());
+        e.row().ifPresent(b::row);
+        e.line().ifPresent(b::line);
+        e.key().ifPresent(b::key);
+        e.column().ifPresent(b::column);
+        e.asset().ifPresent(b::asset);
+        e.value().ifPresent(b::value);
+        e.fix().ifPresent(b::fix);
+        return b.build();
     }
 
     private RebalanceObjective objective(Policy p) {

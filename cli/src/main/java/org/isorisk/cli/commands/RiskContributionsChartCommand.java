@@ -44,16 +44,18 @@ public final class RiskContributionsChartCommand extends BaseCommand {
     protected ExitCode execute() {
         chartFile.format(); // refuse an unknown format before any work
         LoadedUniverse u = inputs.load(false);
+        warn(u.warnings());
         PortfolioFile p = PortfolioReader.read(weights, "weights", u.assets(), inputs.units());
+        warn(p.warnings());
         Provenance prov = u.provenance().withInput(p.source());
         RiskShares proposed = RiskShares.of("Proposed", RiskAnalysis.decompose(u.universe(), p.weights()));
         RiskShares now = null;
         if (current != null) {
             PortfolioFile c = PortfolioReader.read(current, "current", u.assets(), inputs.units());
+            warn(c.warnings());
             prov = prov.withInput(c.source());
             now = RiskShares.of("Current", RiskAnalysis.decompose(u.universe(), c.weights()));
         }
-        warn(u.warnings());
         ChartSettings s = chartFile.settings();
         Figure fig = Charts.riskContributions(now, proposed, chartFile.context(prov), AssetColours.of(u.assets()), s);
         ChartCommand.write(this, fig, chartFile.file(), s);

@@ -9,6 +9,7 @@ import java.util.Map;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.ProgressLine;
 import org.isorisk.cli.options.Decimal;
+import org.isorisk.cli.options.Fingerprint;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.options.PolicyOption;
@@ -106,8 +107,8 @@ public final class StressCommand extends BaseCommand {
         List<Scenario> list = new ArrayList<>();
         Provenance prov = u.provenance();
         if (scenarios != null) {
-            list.addAll(ScenarioFile.read(scenarios, assets, groups, inputs::covarianceFor));
-            prov = prov.withInput(TradingOptions.source(scenarios, "scenarios"));
+            list.addAll(ScenarioFile.read(scenarios, assets, groups, f -> inputs.covarianceFor(f, warnings)));
+            prov = prov.withInput(Fingerprint.of("scenarios", scenarios, "--scenarios"));
         }
         int n = assets.size();
         if (volMultiplier != null) {

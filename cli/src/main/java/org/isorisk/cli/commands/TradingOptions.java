@@ -1,7 +1,5 @@
 package org.isorisk.cli.commands;
 
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -9,21 +7,10 @@ import java.util.Map;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.Names;
 import org.isorisk.engine.io.NumberText;
-import org.isorisk.engine.io.SourceFile;
 
-/** Reading pieces shared by {@code rebalance} and {@code stress}: input fingerprints and asset=value options. */
+/** Reading pieces shared by {@code rebalance} and {@code stress}: asset=value options and asset names. */
 final class TradingOptions {
     private TradingOptions() {
-    }
-
-    /** A file's fingerprint for the inputs list (scenario files). */
-    static SourceFile source(Path file, String role) {
-        try {
-            return SourceFile.of(role, file, Files.readAllBytes(file));
-        } catch (java.io.IOException e) {
-            throw InputException.of("cannot read the " + role + " file: " + e.getMessage()).file(file.toString())
-                    .fix("check the path").build();
-        }
     }
 
     /** Index of an asset named on the command line, or an error listing the names. */

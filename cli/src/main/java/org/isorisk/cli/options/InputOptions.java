@@ -82,11 +82,19 @@ public final class InputOptions {
      * Reads another covariance file in the layout of {@code --covariance}, matched by name to the assets of the
      * expected-returns file (used by stress scenarios that replace the covariance).
      *
+     * @param warnings where the reading's warnings about {@code file} itself are added (the ones about the
+     *                 expected-returns file are those of {@link #load}, already known)
      * @return the covariance in the universe's asset order
      */
-    public double[][] covarianceFor(Path file) {
-        return UniverseLoader.load(new UniverseFiles(expectedReturns, file, null, null, units, null)).universe()
-                .covariance();
+    public double[][] covarianceFor(Path file, java.util.List<String> warnings) {
+        LoadedUniverse u = UniverseLoader.load(new UniverseFiles(expectedReturns, file, null, null, units, null));
+        String about = file + ": ";
+        for (String w : u.warnings()) {
+            if (w.startsWith(about) && !warnings.contains(w)) {
+                warnings.add(w);
+            }
+        }
+        return u.universe().covariance();
     }
 
     /** Reads {@code decimal} or {@code percent}. */

@@ -1,7 +1,5 @@
 package org.isorisk.cli.options;
 
-import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -65,14 +63,7 @@ public final class PolicyOption {
             return new Loaded(inputs, Optional.empty(), null);
         }
         Policy p = PolicyReader.read(policy, inputs.assets());
-        byte[] bytes;
-        try {
-            bytes = Files.readAllBytes(policy);
-        } catch (IOException e) {
-            throw InputException.of("cannot read the policy file: " + e.getMessage()).file(policy.toString())
-                    .fix("check the path given to --policy").build();
-        }
-        SourceFile source = SourceFile.of("policy", policy, bytes);
+        SourceFile source = Fingerprint.of("policy", policy, "--policy");
         LoadedUniverse with = new LoadedUniverse(inputs.universe(), inputs.hasExpectedReturns(), inputs.spectrum(),
                 inputs.provenance().withInput(source), inputs.warnings());
         return new Loaded(with, Optional.of(p), source.name());

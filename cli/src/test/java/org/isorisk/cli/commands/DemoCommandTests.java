@@ -8,6 +8,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import org.isorisk.cli.Run;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.notebooks.PackLayout;
@@ -71,6 +72,30 @@ class DemoCommandTests {
                 + "left alone; fix: choose another --out, or empty the folder\n", r.err());
         assertEquals("", r.out());
         assertEquals("keep", Files.readString(mine.resolve("notes.txt")));
+    }
+
+    @Test
+    void errorsAndWarningsInADataFolderWithoutAPackFileNameTheUsersFiles() throws IOException {
+        Path data = Files.createDirectory(dir.resolve("data"));
+        Files.copy(Run.SAMPLE.resolve("expected_returns.csv"), data.resolve("expected_returns.csv"));
+        Files.copy(Run.SAMPLE.resolve("covariance.csv"), data.resolve("covariance.csv"));
+        Path holdings = Files.writeString(data.resolve("holdings.csv"), "asset,market_value\nCash,5\nGold,1\n");
+        Path out = dir.resolve("out");
+        Run r = Run.of("demo", "--data", data.toString(), "--out", out.toString());
+        assertEquals(2, r.code(), r.toString());
+        assertEquals("isorisk: error: " + holdings + ", row 3, column 'asset', asset 'Gold': the asset is not in the "
+                + "asset universe (the expected-returns and covariance files); fix: use the names of the "
+                + "expected-returns file, or delete the row\n", r.err());
+        assertFalse(Files.exists(out), "no partial output");
+        // without its Commodities row the sample holdings still make a pack, with PortfolioReader's warning
+        List<String> lines = new java.util.ArrayList<>(Files.readAllLines(Run.SAMPLE.resolve("holdings.csv")));
+        assertTrue(lines.remove(lines.size() - 1).startsWith("Commodities,"));
+        Files.writeString(holdings, String.join("\n", lines) + "\n");
+        Run ok = Run.of("demo", "--data", data.toString(), "--out", out.toString());
+        assertEquals(0, ok.code(), ok.toString());
+        assertEquals("isorisk: warning: " + holdings + ": 1 asset is not listed and counts as weight 0: Commodities\n",
+                ok.err());
+        assertTrue(Files.isRegularFile(out.resolve(PackLayout.NOTEBOOK)));
     }
 
     @Test

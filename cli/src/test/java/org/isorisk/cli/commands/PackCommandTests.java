@@ -47,6 +47,22 @@ class PackCommandTests {
     }
 
     @Test
+    void theHoldingsFilesWarningsAreRepeatedOnStderrAsByEveryCommandWritingAFileOrFolder() throws IOException {
+        // the sample holdings without their Commodities row: PortfolioReader warns that it counts as weight 0
+        List<String> lines = new ArrayList<>(Files.readAllLines(Run.SAMPLE.resolve("holdings.csv")));
+        assertTrue(lines.remove(lines.size() - 1).startsWith("Commodities,"));
+        Path held = Path.of(Run.file(dir, "holdings.csv", String.join("\n", lines) + "\n"));
+        Path out = dir.resolve("pack");
+        String[] a = args(out);
+        a[6] = held.toString();
+        Run r = Run.of(a);
+        assertEquals(0, r.code(), r.toString());
+        String warning = held + ": 1 asset is not listed and counts as weight 0: Commodities";
+        assertEquals("isorisk: warning: " + warning + "\n", r.err());
+        assertTrue(r.out().contains("  Note: " + warning + "\n"), r.out());
+    }
+
+    @Test
     void thePackFolderHoldsTheNotebookTablesInputsAndAManifestWhoseHashesMatch() throws IOException {
         Path out = dir.resolve("pack");
         List<String> inputsBefore = listing(Run.SAMPLE);

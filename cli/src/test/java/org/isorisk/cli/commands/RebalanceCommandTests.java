@@ -113,6 +113,21 @@ class RebalanceCommandTests {
     }
 
     @Test
+    void holdingWeightsOffTheBudgetAreBadInputNamingTheHoldingsFile() {
+        String h = Run.file(dir, "pct.csv", "asset,weight\nCash,30\nGovernment Bonds,70\n");
+        Path out = dir.resolve("r.txt");
+        Run r = Run.of("rebalance", "--expected-returns", mu, "--covariance", cov, "--holdings", h,
+                "--target-return", "0.05", "--out", out.toString());
+        assertEquals(2, r.code(), r.toString());
+        // the check is Holdings.ofWeights'; the CLI adds the file the weights were read from
+        assertEquals("isorisk: error: " + h + ": the holding weights add up to 100.000000, not to the budget "
+                + "1.000000; fix: cash is an asset: add or correct the cash row so that the weights add up to the "
+                + "budget\n", r.err());
+        assertEquals("", r.out());
+        assertFalse(Files.exists(out));
+    }
+
+    @Test
     void anUnknownAssetOnTheNoTradeListIsBadInput() {
         Run r = Run.of("rebalance", "--expected-returns", mu, "--covariance", cov, "--policy", policy, "--holdings",
                 holdings, "--target-return", "0.05", "--no-trade", "Gold");

@@ -35,6 +35,36 @@ class StressCommandTests {
     }
 
     @Test
+    void aScenarioCovarianceFilesWarningsAreShownOnceWithTheOthers() throws Exception {
+        // the sample covariance typed in percent squared (every entry times 10 000): UniverseLoader warns that the
+        // variances look like percent squared; the scenario still runs with the numbers as given
+        StringBuilder b = new StringBuilder();
+        for (String line : Files.readAllLines(Path.of(cov))) {
+            if (line.startsWith("#") || line.startsWith("asset,")) {
+                b.append(line).append('\n');
+                continue;
+            }
+            String[] cells = line.split(",");
+            b.append(cells[0]);
+            for (int k = 1; k < cells.length; k++) {
+                b.append(',').append(new java.math.BigDecimal(cells[k]).scaleByPowerOfTen(4).toPlainString());
+            }
+            b.append('\n');
+        }
+        Path crisis = Path.of(Run.file(dir, "crisis.csv", b.toString()));
+        String file = Run.file(dir, "crisis.yaml", "scenarios:\n  - name: typed-in-percent\n    shocks:\n"
+                + "      - covariance: {file: crisis.csv}\n");
+        Run r = Run.of("stress", "--expected-returns", mu, "--covariance", cov, "--policy", policy, "--targets",
+                "0.045:0.05:0.005", "--scenarios", file, "--quiet", "--format", "json");
+        assertEquals(0, r.code(), r.toString());
+        String warning = crisis + ": variances look like percent squared ('Emerging Equity' has variance 462.25, a "
+                + "volatility above 100 %); if they are, add --units percent (divides covariances by 10 000)";
+        assertEquals("isorisk: warning: " + warning + "\n", r.err());
+        assertEquals(1, r.json().get("warnings").size(), r.out());
+        assertEquals(warning, r.json().get("warnings").get(0).asText());
+    }
+
+    @Test
     void theSampleScenariosRunOverTheGridWithRepairAndProgressOnStderrOnly() {
         Run r = Run.of("stress", "--expected-returns", mu, "--covariance", cov, "--policy", policy, "--targets",
                 "0.045:0.06:0.005", "--scenarios", scenarios, "--vol-multiplier", "1.5", "--return-shift",
