@@ -10,31 +10,47 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
+import java.util.ArrayList;
 import java.util.Comparator;
+import java.util.List;
 import java.util.stream.Stream;
 import org.isorisk.engine.error.InputException;
 
 /**
  * The one place where results become files: everything is written to a temporary file (or folder) beside the
  * target and moved into place at the end, so that a reader never sees a half-written result and a failure
- * leaves the previous version untouched.
+ * leaves the previous version untouched. Files and folders share one mechanism for that ({@code Publication}):
+ * each write registers its temporary sibling, and the one shutdown hook (Ctrl-C, kill) removes every temporary
+ * still being written and puts back an earlier output folder moved aside, while a rename already under way
+ * finishes first.
  */
 public final class AtomicWrite {
     private AtomicWrite() {
     }
 
     /**
-     * Temporary files and folders being written right now; a shutdown hook deletes whatever is left in it, so that
-     * an interrupted run (Ctrl-C) leaves no partial output beside the target.
+     * Every write in progress, file or folder. One shutdown hook (Ctrl-C, kill) aborts each of them under its
+     * lock, so that an interrupted run leaves no temporary file or folder and nothing half-written at a target;
+     * once it has started, no new write begins.
      */
-    private static final java.util.Set<Path> PENDING = java.util.concurrent.ConcurrentHashMap.newKeySet();
+    private static final java.util.Set<Publication> PENDING = new java.util.LinkedHashSet<>();
+    /** Set by the shutdown hook, under the lock of {@link #PENDING}. */
+    private static boolean stopping;
 
     static {
-        Runtime.getRuntime().addShutdownHook(new Thread(() -> {
-            for (Path p : PENDING) {
-                deleteTree(p);
-            }
-        }, "isorisk-cleanup"));
+        Runtime.getRuntime().addShutdownHook(new Thread(AtomicWrite::abortAll, "isorisk-cleanup"));
+    }
+
+    /** The shutdown hook: refuses new writes, then aborts each one in progress. */
+    private static void abortAll() {
+        List<Publication> all;
+        synchronized (PENDING) {
+            stopping = true;
+            all = new ArrayList<>(PENDING);
+        }
+        for (Publication p : all) {
+            p.abort();
+        }
     }
 
     /** Marker file inside every output folder this class writes; only such folders are replaced. */
@@ -64,32 +80,11 @@ public final class AtomicWrite {
      * @throws InputException when the target cannot be written (named, with a fix)
      */
     public static void file(Path target, TextBody body) {
-        Path abs = target.toAbsolutePath();
-        Path parent = parentOf(abs, target);
-        if (Files.isDirectory(abs)) {
-            throw InputException.of("the output path is a folder").file(target.toString())
-                    .fix("give a file name, e.g. " + target.resolve("result.json")).build();
-        }
-        Path tmp = null;
-        try {
-            tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
-            PENDING.add(tmp);
-            try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8, StandardOpenOption.CREATE_NEW,
-                    StandardOpenOption.WRITE)) {
+        writeFile(target, "result.json", tmp -> {
+            try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8, StandardOpenOption.WRITE)) {
                 body.write(w);
             }
-            move(tmp, abs);
-            PENDING.remove(tmp);
-            tmp = null;
-        } catch (IOException e) {
-            throw InputException.of("the output file cannot be written (" + reason(e) + ")").file(target.toString())
-                    .fix("check that the folder is writable, or choose another --out").build();
-        } finally {
-            deleteQuietly(tmp);
-            if (tmp != null) {
-                PENDING.remove(tmp);
-            }
-        }
+        }, e -> "the output file cannot be written (" + reason(e) + ")");
     }
 
     /**
@@ -98,30 +93,47 @@ public final class AtomicWrite {
      * @throws InputException when the target cannot be written (named, with a fix)
      */
     public static void bytes(Path target, BinaryBody body) {
+        writeFile(target, "chart.png", tmp -> {
+            try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp,
+                    StandardOpenOption.WRITE))) {
+                body.write(out);
+            }
+        }, e -> "the output file cannot be written: " + e.getMessage());
+    }
+
+    /** Writes an existing (just created, empty) temporary file. */
+    @FunctionalInterface
+    private interface FileBody {
+        void write(Path tmp) throws IOException;
+    }
+
+    /**
+     * The single-file write: a temporary sibling {@code .NAME.PID-….tmp}, created empty under the publication's
+     * lock (so that the shutdown hook either sees it or stops it being created), written by {@code body}
+     * (which opens it without creating it: a file the hook deleted is not brought back), then moved onto the
+     * target.
+     */
+    private static void writeFile(Path target, String example, FileBody body,
+                                  java.util.function.Function<IOException, String> message) {
         Path abs = target.toAbsolutePath();
         Path parent = parentOf(abs, target);
         if (Files.isDirectory(abs)) {
             throw InputException.of("the output path is a folder").file(target.toString())
-                    .fix("give a file name, e.g. " + target.resolve("chart.png")).build();
+                    .fix("give a file name, e.g. " + target.resolve(example)).build();
         }
-        Path tmp = null;
+        Path tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
+        Publication pub = null;
         try {
-            tmp = parent.resolve("." + abs.getFileName() + "." + unique() + ".tmp");
-            PENDING.add(tmp);
-            try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp,
-                    StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE))) {
-                body.write(out);
-            }
-            move(tmp, abs);
-            PENDING.remove(tmp);
-            tmp = null;
+            pub = Publication.begin(abs, tmp, null);
+            pub.stage(() -> Files.createFile(tmp));
+            body.write(tmp);
+            pub.publish();
         } catch (IOException e) {
-            throw InputException.of("the output file cannot be written: " + e.getMessage()).file(target.toString())
+            throw InputException.of(message.apply(e)).file(target.toString())
                     .fix("check that the folder is writable, or choose another --out").build();
         } finally {
-            deleteQuietly(tmp);
-            if (tmp != null) {
-                PENDING.remove(tmp);
+            if (pub != null) {
+                pub.finish();
             }
         }
     }
@@ -152,7 +164,7 @@ public final class AtomicWrite {
      * ({@code .NAME.tmp-…}, holding {@link #MARKER}), which is then renamed onto {@code target}. An empty target
      * is replaced; a non-empty one only when {@code replaceEarlier} is set and it holds {@link #MARKER} (an
      * earlier isorisk output), never a folder of the user's. The earlier output is renamed aside, the new one
-     * renamed in, and the old one deleted; if the second rename fails the earlier output is put back. A shutdown
+     * renamed in, and the old one deleted; if the second rename fails the earlier output is put back. The shutdown
      * hook (Ctrl-C, kill) and the renames share a lock: an interrupted run removes its temporary folder and puts
      * back an earlier output it had moved aside, so nothing half-written is ever left at {@code target}.
      *
@@ -176,48 +188,84 @@ public final class AtomicWrite {
             throw InputException.of("the output folder exists and is not empty").file(target.toString())
                     .fix("choose another --out, or add --force to replace the earlier output").build();
         }
-        Publication pub = new Publication(abs, parent.resolve("." + abs.getFileName() + ".tmp-" + unique()),
-                parent.resolve("." + abs.getFileName() + ".old-" + unique()));
-        Thread hook = new Thread(pub::interrupted, "isorisk-output-cleanup");
-        Runtime.getRuntime().addShutdownHook(hook);
+        Path staging = parent.resolve("." + abs.getFileName() + ".tmp-" + unique());
+        Path aside = parent.resolve("." + abs.getFileName() + ".old-" + unique());
+        Publication pub = null;
         try {
-            Files.createDirectory(pub.staging);
-            Files.writeString(pub.staging.resolve(MARKER), "written by isorisk; this folder is replaced as a whole\n",
-                    StandardCharsets.UTF_8);
-            body.fill(pub.staging);
+            pub = Publication.begin(abs, staging, aside);
+            pub.stage(() -> {
+                Files.createDirectory(staging);
+                Files.writeString(staging.resolve(MARKER), "written by isorisk; this folder is replaced as a whole\n",
+                        StandardCharsets.UTF_8);
+            });
+            body.fill(staging);
             pub.publish();
         } catch (IOException e) {
             throw InputException.of("the output folder cannot be written (" + reason(e) + ")").file(target.toString())
                     .fix("check that the folder is writable and has space, or choose another --out").build();
         } finally {
-            pub.cleanUp();
-            try {
-                Runtime.getRuntime().removeShutdownHook(hook);
-            } catch (IllegalStateException shuttingDown) {
-                // the hook is running or has run, and has cleaned up
+            if (pub != null) {
+                pub.finish();
             }
         }
     }
 
-    /** The renames of one {@link #folder} call and their undoing, serialised with the shutdown hook. */
+    /** Creates a write's temporary file or folder. */
+    @FunctionalInterface
+    private interface Staging {
+        void create() throws IOException;
+    }
+
+    /**
+     * One write in progress (a file or a folder) and its undoing: the temporary sibling it is written to, the
+     * target it is moved onto and, for a folder, the name an earlier output is moved aside to while the new one
+     * moves in. Creating the temporary, publishing and aborting are serialised on this object, so that the
+     * shutdown hook either lets a rename finish or stops it from starting.
+     */
     private static final class Publication {
         private final Path target;
         private final Path staging;
+        /** Where an earlier output folder waits while the new one moves in; null for a file. */
         private final Path aside;
         private boolean aborted;
         private boolean published;
 
-        Publication(Path target, Path staging, Path aside) {
+        private Publication(Path target, Path staging, Path aside) {
             this.target = target;
             this.staging = staging;
             this.aside = aside;
         }
 
+        /** Registers a write with the shutdown hook; refused once the hook has started. */
+        static Publication begin(Path target, Path staging, Path aside) throws IOException {
+            Publication p = new Publication(target, staging, aside);
+            synchronized (PENDING) {
+                if (stopping) {
+                    throw new IOException("interrupted: the program is stopping");
+                }
+                PENDING.add(p);
+            }
+            return p;
+        }
+
+        /** Creates the temporary file or folder, unless the write was aborted. */
+        synchronized void stage(Staging create) throws IOException {
+            if (aborted) {
+                throw new IOException("interrupted");
+            }
+            create.create();
+        }
+
+        /**
+         * Moves the temporary onto the target. A folder first moves an earlier output aside (an empty target
+         * is deleted instead), and puts it back if the second move fails; the earlier output is deleted once the
+         * new one is in place.
+         */
         synchronized void publish() throws IOException {
             if (aborted) {
                 throw new IOException("interrupted");
             }
-            if (Files.isDirectory(target)) {
+            if (aside != null && Files.isDirectory(target)) {
                 if (isEmpty(target)) {
                     Files.delete(target);
                 } else {
@@ -234,13 +282,21 @@ public final class AtomicWrite {
             deleteTree(aside);
         }
 
-        /** Runs in the shutdown hook. */
-        synchronized void interrupted() {
+        /** Runs in the shutdown hook: no further step of this write, and its temporary removed. */
+        synchronized void abort() {
             aborted = true;
             cleanUp();
         }
 
-        synchronized void cleanUp() {
+        /** Ends the write, published or not: the temporary removed and the write no longer pending. */
+        void finish() {
+            cleanUp();
+            synchronized (PENDING) {
+                PENDING.remove(this);
+            }
+        }
+
+        private synchronized void cleanUp() {
             if (!published) {
                 deleteTree(staging);
                 restore();
@@ -248,7 +304,7 @@ public final class AtomicWrite {
         }
 
         private void restore() {
-            if (Files.isDirectory(aside) && !Files.exists(target)) {
+            if (aside != null && Files.isDirectory(aside) && !Files.exists(target)) {
                 try {
                     move(aside, target);
                 } catch (IOException e) {

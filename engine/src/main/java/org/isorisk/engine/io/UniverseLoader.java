@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Locale;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.linalg.Cholesky;
+import org.isorisk.engine.linalg.Definiteness;
 import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.AssetUniverse;
 
@@ -33,12 +34,6 @@ public final class UniverseLoader {
      * symmetrised by averaging the two entries (common practice, no source).
      */
     public static final double SYMMETRY_TOLERANCE = 1e-6;
-
-    /**
-     * A covariance whose smallest eigenvalue is at or below this fraction of its largest counts as not positive
-     * definite: at a condition number of 1e12, double precision leaves about four correct digits in a solve.
-     */
-    public static final double DEFINITENESS_TOLERANCE = 1e-12;
 
     /** Above this condition number a warning says results are sensitive to small input changes (common practice). */
     public static final double CONDITION_WARNING = 1e8;
@@ -264,8 +259,9 @@ public final class UniverseLoader {
 
     /**
      * Checks that symmetric {@code a} is positive definite (smallest eigenvalue above
-     * {@value #DEFINITENESS_TOLERANCE} of the largest) and returns its extreme eigenvalues; otherwise an error
-     * on {@code t} naming the smallest eigenvalue and, if there is one, a perfectly correlated pair.
+     * {@value Definiteness#INPUT} of the largest, the threshold for assumption files) and returns its extreme
+     * eigenvalues; otherwise an error on {@code t} naming the smallest eigenvalue and, if there is one, the
+     * perfectly correlated pair {@link Definiteness#perfectlyCorrelatedPair} finds.
      *
      * @param a     the matrix (not modified)
      * @param names asset names in the matrix's order
@@ -274,27 +270,19 @@ public final class UniverseLoader {
     public static Spectrum requirePositiveDefinite(double[][] a, List<String> names, CsvTable t, String what) {
         Cholesky chol = Cholesky.factor(a);
         Spectrum sp = chol == null ? Spectrum.of(a) : Spectrum.of(a, chol);
-        if (chol != null && sp.smallest() > DEFINITENESS_TOLERANCE * sp.largest()) {
+        if (chol != null && Definiteness.positiveDefinite(sp, Definiteness.INPUT)) {
             return sp;
         }
+        Definiteness.Pair p = Definiteness.perfectlyCorrelatedPair(a);
         String pair = "";
-        int n = a.length;
-        outer:
-        for (int i = 0; i < n; i++) {
-            for (int j = i + 1; j < n; j++) {
-                double d = Math.sqrt(a[i][i] * a[j][j]);
-                double rho = d > 0 ? a[i][j] / d : 0;
-                if (Math.abs(rho) > 1 + 1e-10) {
-                    pair = String.format(Locale.ROOT, "; the implied correlation of '%s' and '%s' is %s, outside "
-                            + "[-1, 1]", names.get(i), names.get(j), NumberText.show(rho));
-                    break outer;
-                }
-                if (Math.abs(rho) >= 1 - 1e-10) {
-                    pair = String.format(Locale.ROOT, "; '%s' and '%s' are perfectly correlated (correlation %s)",
-                            names.get(i), names.get(j), NumberText.show(rho));
-                    break outer;
-                }
-            }
+        if (p != null) {
+            String x = names.get(p.first());
+            String y = names.get(p.second());
+            String rho = NumberText.show(p.correlation());
+            pair = p.outsideRange()
+                    ? String.format(Locale.ROOT, "; the implied correlation of '%s' and '%s' is %s, outside [-1, 1]",
+                            x, y, rho)
+                    : String.format(Locale.ROOT, "; '%s' and '%s' are perfectly correlated (correlation %s)", x, y, rho);
         }
         String smallest = Double.isNaN(sp.smallest()) ? "not computed at this size" : NumberText.show(sp.smallest());
         InputException.Builder b = InputException.of(String.format(Locale.ROOT, "the %s matrix is not positive definite: "

@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.linalg.Cholesky;
+import org.isorisk.engine.linalg.Definiteness;
 import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.SolverSettings;
@@ -18,12 +19,6 @@ import org.isorisk.engine.model.SolverSettings;
  * remembered (a sweep over return targets reuses Σ⁻¹1 and Σ⁻¹μ for every point). Safe to share between threads.
  */
 public final class Factored {
-    /**
-     * Σ counts as singular to working precision when {@code λmin ≤ SINGULAR · λmax}: its inverse would then
-     * carry no correct digit (condition number beyond 1/(n·ε) for n up to a few thousand assets).
-     */
-    public static final double SINGULAR = 1e-13;
-
     /** Most remembered solves; past it the memory starts afresh (sweeps use two or three gradients). */
     private static final int MEMO_LIMIT = 64;
 
@@ -98,7 +93,7 @@ public final class Factored {
     }
 
     private static Spectrum checked(AssetUniverse u, Spectrum sp) {
-        if (!(sp.smallest() > SINGULAR * sp.largest())) {
+        if (!Definiteness.positiveDefinite(sp, Definiteness.SINGULAR)) {
             throw notPositiveDefinite(u, u.covariance(), sp);
         }
         return sp;
@@ -108,21 +103,15 @@ public final class Factored {
         int n = sigma.length;
         List<String> involved = new ArrayList<>();
         String pair = "";
-        outer:
-        for (int i = 0; i < n; i++) {
-            for (int j = i + 1; j < n; j++) {
-                double d = Math.sqrt(sigma[i][i] * sigma[j][j]);
-                double rho = d > 0 ? sigma[i][j] / d : 0;
-                if (Math.abs(rho) >= 1 - 1e-10) {
-                    involved.add(u.assets().get(i));
-                    involved.add(u.assets().get(j));
-                    pair = String.format(Locale.ROOT, Math.abs(rho) <= 1 + 1e-10
-                                    ? "; assets '%s' and '%s' are perfectly correlated (%.6f)"
-                                    : "; assets '%s' and '%s' have correlation %.6f, outside [-1, 1]",
-                            u.assets().get(i), u.assets().get(j), rho);
-                    break outer;
-                }
-            }
+        Definiteness.Pair p = Definiteness.perfectlyCorrelatedPair(sigma);
+        if (p != null) {
+            String x = u.assets().get(p.first());
+            String y = u.assets().get(p.second());
+            involved.add(x);
+            involved.add(y);
+            pair = String.format(Locale.ROOT, p.outsideRange()
+                            ? "; assets '%s' and '%s' have correlation %.6f, outside [-1, 1]"
+                            : "; assets '%s' and '%s' are perfectly correlated (%.6f)", x, y, p.correlation());
         }
         for (int i = 0; i < n && pair.isEmpty(); i++) {
             if (!(sigma[i][i] > 0)) {
@@ -130,7 +119,7 @@ public final class Factored {
                 pair = String.format(Locale.ROOT, "; asset '%s' has variance %s", u.assets().get(i), sigma[i][i]);
             }
         }
-        String smallest = Math.abs(sp.smallest()) <= SINGULAR * Math.abs(sp.largest())
+        String smallest = Math.abs(sp.smallest()) <= Definiteness.SINGULAR * Math.abs(sp.largest())
                 ? "smallest eigenvalue 0 to working precision: singular"
                 : String.format(Locale.ROOT, "smallest eigenvalue %.6g", sp.smallest());
         String msg = String.format(Locale.ROOT,
