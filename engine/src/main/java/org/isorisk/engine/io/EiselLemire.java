@@ -101,7 +101,10 @@ final class EiselLemire {
         return Double.longBitsToDouble(bits);
     }
 
-    /** {@code floor(q·log2 10) + 63}, exact for |q| ≤ 1700 (the paper's fixed-point form, 217706 = 152170 + 65536). */
+    /**
+     * {@code floor(q·log2 10) + 63} in the paper's fixed-point form (217706 = 152170 + 65536); exact for q in
+     * [-642, 642] (checked against integer bit lengths of 10^q), which holds the table's range.
+     */
     private static int power(int q) {
         return ((217706 * q) >> 16) + 63;
     }
