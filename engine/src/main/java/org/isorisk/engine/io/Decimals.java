@@ -1,10 +1,12 @@
 package org.isorisk.engine.io;
 
 /**
- * Exact fast reading of the commonest numeric cell, for large tables: {@code [-]digits[.digits][e[-]digits]} with
- * at most 15 significant digits. The digits form an integer m below 2^53 and 10^k (k ≤ 22) is exact, so {@code m / 10^k} is
- * one correctly rounded operation and equals what {@link Double#parseDouble} returns (Clinger 1990, "How to read
- * floating point numbers accurately", PLDI). Anything else goes to {@link NumberText}, which judges it.
+ * Exact fast reading of the commonest numeric cell, for large tables: {@code [+-]digits[.digits][(e|E)[+-]digits]}
+ * with at most 19 significant digits. Up to 15 digits the digits form an integer m below 2^53 and 10^k (k ≤ 22)
+ * is exact, so {@code m / 10^k} is one correctly rounded operation and equals what {@link Double#parseDouble}
+ * returns (Clinger 1990, "How to read floating point numbers accurately", PLDI). Beyond that (full-precision
+ * exports: {@code Double.toString}'s 16–17 digits, {@code %.18e}'s 19) {@link EiselLemire} answers exactly or
+ * declines. Anything declined goes to {@link NumberText}, which judges it.
  */
 final class Decimals {
     private Decimals() {
@@ -23,7 +25,7 @@ final class Decimals {
      * The value of {@code s}, or NaN when it is not of the fast form (the caller then reads it the usual way). The
      * fast form also takes an exponent ({@code 1.25e-3}) when the digits' integer m stays below 2^53 and the net
      * power of ten is at most 22 either way: then {@code m·10^p} or {@code m/10^p} is one correctly rounded
-     * operation too.
+     * operation too. Other cases of up to 19 significant digits go to {@link EiselLemire#toDouble}.
      */
     static double fast(String s) {
         int n = s.length();
@@ -46,7 +48,7 @@ final class Decimals {
                 if (m != 0 || c != '0') {
                     digits++;
                 }
-                if (digits > 15) {
+                if (digits > 19) {
                     return Double.NaN;
                 }
                 m = m * 10 + (c - '0');
@@ -69,14 +71,10 @@ final class Decimals {
             return Double.NaN;
         }
         int p = exponent - decimals;
-        double v;
-        if (p >= 0 && p < POW10.length) {
-            v = m * POW10[p];
-        } else if (p < 0 && -p < POW10.length) {
-            v = m / POW10[-p];
-        } else {
-            return Double.NaN;
+        if (digits > 15 || p >= POW10.length || -p >= POW10.length) {
+            return EiselLemire.toDouble(m, p, negative);
         }
+        double v = p >= 0 ? m * POW10[p] : m / POW10[-p];
         return negative ? -v : v;
     }
 
