@@ -1,6 +1,7 @@
 package org.isorisk.engine.estimate;
 
 import java.util.stream.IntStream;
+import org.isorisk.engine.linalg.Dense;
 
 /**
  * Means and cross-products of return columns. Columns are stored one array per asset ({@code x[j][t]}) so
@@ -68,7 +69,7 @@ final class Moments {
                 } else {
                     for (int ii = i; ii < Math.min(i + 2, n); ii++) {
                         for (int jj = j; jj < Math.min(j + 2, n); jj++) {
-                            g[ii][jj] = dot(a[ii], b[jj]) / divisor;
+                            g[ii][jj] = Dense.dot(a[ii], b[jj]) / divisor;
                         }
                     }
                 }
@@ -124,26 +125,6 @@ final class Moments {
         g[i][j + 1] = (s01 + u01) / divisor;
         g[i + 1][j] = (s10 + u10) / divisor;
         g[i + 1][j + 1] = (s11 + u11) / divisor;
-    }
-
-    /** Dot product with four partial sums (shorter dependency chains; the JIT keeps them in registers). */
-    static double dot(double[] x, double[] y) {
-        int len = x.length;
-        double s0 = 0;
-        double s1 = 0;
-        double s2 = 0;
-        double s3 = 0;
-        int t = 0;
-        for (; t + 3 < len; t += 4) {
-            s0 += x[t] * y[t];
-            s1 += x[t + 1] * y[t + 1];
-            s2 += x[t + 2] * y[t + 2];
-            s3 += x[t + 3] * y[t + 3];
-        }
-        for (; t < len; t++) {
-            s0 += x[t] * y[t];
-        }
-        return (s0 + s1) + (s2 + s3);
     }
 
     /** Elementwise power of every column (new arrays). */

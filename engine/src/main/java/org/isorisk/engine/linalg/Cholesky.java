@@ -200,27 +200,7 @@ public final class Cholesky {
         for (int j = 0; j < kb; j++) {
             double[] lj = l[k0 + j];
             double[] pj = panel[j];
-            int p = 0;
-            for (; p + 3 < j; p += 4) {
-                double c0 = lj[k0 + p];
-                double c1 = lj[k0 + p + 1];
-                double c2 = lj[k0 + p + 2];
-                double c3 = lj[k0 + p + 3];
-                double[] q0 = panel[p];
-                double[] q1 = panel[p + 1];
-                double[] q2 = panel[p + 2];
-                double[] q3 = panel[p + 3];
-                for (int i = from; i < to; i++) {
-                    pj[i] -= c0 * q0[i] + c1 * q1[i] + c2 * q2[i] + c3 * q3[i];
-                }
-            }
-            for (; p < j; p++) {
-                double c0 = lj[k0 + p];
-                double[] q0 = panel[p];
-                for (int i = from; i < to; i++) {
-                    pj[i] -= c0 * q0[i];
-                }
-            }
+            subtractCombination(pj, lj, k0, j, panel, from, to);
             double inv = 1.0 / lj[k0 + j];
             for (int i = from; i < to; i++) {
                 pj[i] *= inv;
@@ -257,28 +237,37 @@ public final class Cholesky {
             int j1 = Math.min(j0 + TILE, to);
             for (int i = Math.max(from, j0); i < to; i++) {
                 double[] ri = l[i];
-                int end = Math.min(j1, i + 1);
-                int p = 0;
-                for (; p + 3 < kb; p += 4) {
-                    double a0 = ri[k0 + p];
-                    double a1 = ri[k0 + p + 1];
-                    double a2 = ri[k0 + p + 2];
-                    double a3 = ri[k0 + p + 3];
-                    double[] q0 = panel[p];
-                    double[] q1 = panel[p + 1];
-                    double[] q2 = panel[p + 2];
-                    double[] q3 = panel[p + 3];
-                    for (int j = j0; j < end; j++) {
-                        ri[j] -= a0 * q0[j] + a1 * q1[j] + a2 * q2[j] + a3 * q3[j];
-                    }
-                }
-                for (; p < kb; p++) {
-                    double a0 = ri[k0 + p];
-                    double[] q0 = panel[p];
-                    for (int j = j0; j < end; j++) {
-                        ri[j] -= a0 * q0[j];
-                    }
-                }
+                subtractCombination(ri, ri, k0, kb, panel, j0, Math.min(j1, i + 1));
+            }
+        }
+    }
+
+    /**
+     * {@code target[i] −= Σ_{p<count} coef[k0+p]·panel[p][i]} for {@code lo ≤ i < hi}, four panel columns per
+     * pass (each target entry loaded and stored once per four); the coefficients are read before the pass, so
+     * {@code coef} may be {@code target} itself when its entries {@code k0..k0+count−1} lie outside [lo, hi).
+     */
+    private static void subtractCombination(double[] target, double[] coef, int k0, int count, double[][] panel,
+                                            int lo, int hi) {
+        int p = 0;
+        for (; p + 3 < count; p += 4) {
+            double c0 = coef[k0 + p];
+            double c1 = coef[k0 + p + 1];
+            double c2 = coef[k0 + p + 2];
+            double c3 = coef[k0 + p + 3];
+            double[] q0 = panel[p];
+            double[] q1 = panel[p + 1];
+            double[] q2 = panel[p + 2];
+            double[] q3 = panel[p + 3];
+            for (int i = lo; i < hi; i++) {
+                target[i] -= c0 * q0[i] + c1 * q1[i] + c2 * q2[i] + c3 * q3[i];
+            }
+        }
+        for (; p < count; p++) {
+            double c0 = coef[k0 + p];
+            double[] q0 = panel[p];
+            for (int i = lo; i < hi; i++) {
+                target[i] -= c0 * q0[i];
             }
         }
     }
@@ -435,22 +424,7 @@ public final class Cholesky {
         }
         double[] z = new double[n];
         for (int i = 0; i < n; i++) {
-            double[] row = l[i];
-            double s0 = 0;
-            double s1 = 0;
-            double s2 = 0;
-            double s3 = 0;
-            int k = 0;
-            for (; k + 3 <= i; k += 4) {
-                s0 += row[k] * y[k];
-                s1 += row[k + 1] * y[k + 1];
-                s2 += row[k + 2] * y[k + 2];
-                s3 += row[k + 3] * y[k + 3];
-            }
-            for (; k <= i; k++) {
-                s0 += row[k] * y[k];
-            }
-            z[i] = (s0 + s1) + (s2 + s3);
+            z[i] = Dense.dot(l[i], y, i + 1);
         }
         return z;
     }

@@ -230,7 +230,7 @@ public record Spectrum(double smallest, double largest, boolean exact) {
         double[][] h = new double[k][k];
         for (int i = 0; i < k; i++) {
             for (int j = 0; j <= i; j++) {
-                double v = 0.5 * (dot(y[i], z[j]) + dot(y[j], z[i]));
+                double v = 0.5 * (Dense.dot(y[i], z[j]) + Dense.dot(y[j], z[i]));
                 h[i][j] = v;
                 h[j][i] = v;
             }
@@ -259,7 +259,7 @@ public record Spectrum(double smallest, double largest, boolean exact) {
                 res[i] += c * (zj[i] - theta[top] * yj[i]);
             }
         }
-        double r = Math.sqrt(dot(res, res));
+        double r = Math.sqrt(Dense.dot(res, res));
         // The gap: to the next Ritz value of the refined subspace or, if it has only one vector, of the rough run.
         double gap = k > 1 ? theta[top] - next : run.hi - run.second();
         double err = gap > 0 ? Math.min(r, r * r / gap) : r;
@@ -381,10 +381,10 @@ public record Spectrum(double smallest, double largest, boolean exact) {
                 }
                 for (int pass = 0; pass < 2; pass++) {
                     for (double[] u : out) {
-                        axpy(-dot(u, y), u, y);
+                        axpy(-Dense.dot(u, y), u, y);
                     }
                 }
-                double norm = Math.sqrt(dot(y, y));
+                double norm = Math.sqrt(Dense.dot(y, y));
                 if (norm > 1e-8) {
                     scale(y, 1.0 / norm);
                     out.add(y);
@@ -408,14 +408,14 @@ public record Spectrum(double smallest, double largest, boolean exact) {
         for (int i = 0; i < n; i++) {
             v[i] = rnd.nextDouble() - 0.5;
         }
-        scale(v, 1.0 / Math.sqrt(dot(v, v)));
+        scale(v, 1.0 / Math.sqrt(Dense.dot(v, v)));
         double lo = Double.NaN;
         double hi = Double.NaN;
         int m = 0;
         for (int k = 0; k < steps; k++) {
             q[k] = v;
             double[] w = op.apply(v);
-            alpha[k] = dot(v, w);
+            alpha[k] = Dense.dot(v, w);
             axpy(-alpha[k], v, w);
             if (k > 0) {
                 axpy(-beta[k - 1], q[k - 1], w);
@@ -423,9 +423,9 @@ public record Spectrum(double smallest, double largest, boolean exact) {
             // One full reorthogonalisation pass against every earlier vector keeps Q orthonormal to working
             // accuracy, so that no spurious copies of converged Ritz values appear.
             for (int j = 0; j <= k; j++) {
-                axpy(-dot(q[j], w), q[j], w);
+                axpy(-Dense.dot(q[j], w), q[j], w);
             }
-            double b = Math.sqrt(dot(w, w));
+            double b = Math.sqrt(Dense.dot(w, w));
             beta[k] = b;
             m = k + 1;
             hi = kthLargest(alpha, beta, m, 0);
@@ -557,26 +557,6 @@ public record Spectrum(double smallest, double largest, boolean exact) {
             }
         }
         return count;
-    }
-
-    /** Dot product with four partial sums (independent chains the processor overlaps). */
-    static double dot(double[] a, double[] b) {
-        int n = a.length;
-        double s0 = 0;
-        double s1 = 0;
-        double s2 = 0;
-        double s3 = 0;
-        int i = 0;
-        for (; i + 3 < n; i += 4) {
-            s0 += a[i] * b[i];
-            s1 += a[i + 1] * b[i + 1];
-            s2 += a[i + 2] * b[i + 2];
-            s3 += a[i + 3] * b[i + 3];
-        }
-        for (; i < n; i++) {
-            s0 += a[i] * b[i];
-        }
-        return (s0 + s1) + (s2 + s3);
     }
 
     private static void axpy(double c, double[] x, double[] y) {

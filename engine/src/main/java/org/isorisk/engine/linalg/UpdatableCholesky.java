@@ -49,7 +49,7 @@ public final class UpdatableCholesky {
         double ss = 0;
         for (int j = 0; j < m; j++) {
             double[] lj = rows[j];
-            double v = (column[j] - dot(lj, r, j)) / lj[j];
+            double v = (column[j] - Dense.dot(lj, r, j)) / lj[j];
             r[j] = v;
             ss += v * v;
         }
@@ -80,7 +80,7 @@ public final class UpdatableCholesky {
             throw new IllegalStateException("factor is full");
         }
         int m = size;
-        double ss = dot(l, l, m);
+        double ss = Dense.dot(l, l, m);
         double d = diagonal - ss;
         double rel = diagonal > 0 ? d / diagonal : -1;
         if (!(rel > relTol)) {
@@ -236,7 +236,7 @@ public final class UpdatableCholesky {
         int m = size;
         for (int i = 0; i < m; i++) {
             double[] li = rows[i];
-            x[i] = (x[i] - dot(li, x, i)) / li[i];
+            x[i] = (x[i] - Dense.dot(li, x, i)) / li[i];
         }
         for (int i = m - 1; i >= 0; i--) {
             double[] li = rows[i];
@@ -246,25 +246,6 @@ public final class UpdatableCholesky {
                 x[k] -= li[k] * xi;
             }
         }
-    }
-
-    /** {@code Σ_{k<len} u[k] v[k]} with four partial sums (independent chains pipeline better). */
-    private static double dot(double[] u, double[] v, int len) {
-        double s0 = 0;
-        double s1 = 0;
-        double s2 = 0;
-        double s3 = 0;
-        int k = 0;
-        for (; k + 3 < len; k += 4) {
-            s0 += u[k] * v[k];
-            s1 += u[k + 1] * v[k + 1];
-            s2 += u[k + 2] * v[k + 2];
-            s3 += u[k + 3] * v[k + 3];
-        }
-        for (; k < len; k++) {
-            s0 += u[k] * v[k];
-        }
-        return (s0 + s1) + (s2 + s3);
     }
 
     /** Entry (i, j) of L, zero above the diagonal. */

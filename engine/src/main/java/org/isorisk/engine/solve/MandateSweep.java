@@ -9,6 +9,7 @@ import java.util.Map;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.explain.Explain;
+import org.isorisk.engine.linalg.Dense;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Certificate;
 import org.isorisk.engine.model.CompactMultipliers;
@@ -18,8 +19,8 @@ import org.isorisk.engine.model.LinearConstraint;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.MertonScalars;
 import org.isorisk.engine.model.Method;
-import org.isorisk.engine.model.Relation;
 import org.isorisk.engine.model.RejectedTarget;
+import org.isorisk.engine.model.Relation;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.model.SolverSettings;
 
@@ -355,7 +356,7 @@ final class MandateSweep {
     }
 
     private double lastReturn(List<CriticalLine.Point> pts, double[] dir) {
-        return dot(dir, pts.get(pts.size() - 1).weights());
+        return Dense.dotInOrder(dir, pts.get(pts.size() - 1).weights());
     }
 
     /**
@@ -393,20 +394,12 @@ final class MandateSweep {
         return d;
     }
 
-    private static double dot(double[] a, double[] b) {
-        double s = 0;
-        for (int i = 0; i < a.length; i++) {
-            s += a[i] * b[i];
-        }
-        return s;
-    }
-
     // ------------------------------------------------------------------ public operations
 
     /** Expected return of the minimum-variance portfolio under the mandate. */
     double minimumVarianceReturn() {
         List<CriticalLine.Point> e = efficient();
-        return dot(mu, e.get(e.size() - 1).weights());
+        return Dense.dotInOrder(mu, e.get(e.size() - 1).weights());
     }
 
     /** The minimum-variance portfolio under the mandate (the λ = 0 end), without a return-target row. */
@@ -423,7 +416,7 @@ final class MandateSweep {
     Solution target(double target) {
         double tol = 1e-12 * Math.max(1, Math.abs(target));
         List<CriticalLine.Point> top = efficient(target - tol);
-        double mMax = dot(mu, top.get(0).weights());
+        double mMax = Dense.dotInOrder(mu, top.get(0).weights());
         if (target > mMax + tol) {
             throw aboveMaximum(target, top.get(0));
         }
@@ -432,7 +425,7 @@ final class MandateSweep {
             return onBranch(top, target, mu, 1, false);
         }
         List<CriticalLine.Point> low = lowEnd();
-        double mMin = dot(mu, low.get(0).weights());
+        double mMin = Dense.dotInOrder(mu, low.get(0).weights());
         if (target < mMin - tol) {
             throw belowMinimum(target, low.get(0));
         }
@@ -454,7 +447,7 @@ final class MandateSweep {
         int k = pts.size();
         double[] rets = new double[k];
         for (int j = 0; j < k; j++) {
-            rets[j] = dot(dir, pts.get(j).weights());
+            rets[j] = Dense.dotInOrder(dir, pts.get(j).weights());
         }
         List<String> notes = new ArrayList<>();
         double tol = 1e-12 * Math.max(1, Math.abs(t));
@@ -520,8 +513,8 @@ final class MandateSweep {
     }
 
     private NoSolutionException aboveMaximum(double target, CriticalLine.Point end) {
-        double mMax = dot(mu, end.weights());
-        double mMin = dot(mu, lowEnd().get(0).weights());
+        double mMax = Dense.dotInOrder(mu, end.weights());
+        double mMin = Dense.dotInOrder(mu, lowEnd().get(0).weights());
         return new NoSolutionException(NoSolutionException.Reason.INFEASIBLE, String.format(Locale.ROOT,
                 "target return %s is above the highest return the mandate allows, %s (%s); achievable returns run "
                         + "from %s to %s; fix: choose a target of at most %s or loosen the upper bounds",
@@ -531,8 +524,8 @@ final class MandateSweep {
     }
 
     private NoSolutionException belowMinimum(double target, CriticalLine.Point end) {
-        double mMin = dot(mu, end.weights());
-        double mMax = dot(mu, efficient().get(0).weights());
+        double mMin = Dense.dotInOrder(mu, end.weights());
+        double mMax = Dense.dotInOrder(mu, efficient().get(0).weights());
         return new NoSolutionException(NoSolutionException.Reason.INFEASIBLE, String.format(Locale.ROOT,
                 "target return %s is below the lowest return the mandate allows, %s (%s); achievable returns run "
                         + "from %s to %s; fix: choose a target of at least %s or loosen the bounds",
@@ -886,7 +879,7 @@ final class MandateSweep {
 
     private Corner corner(CriticalLine.Point p, boolean first, boolean last, double[] dir, double sign, boolean ineff,
                           double[] sx) {
-        double ret = dot(mu, p.weights());
+        double ret = Dense.dotInOrder(mu, p.weights());
         List<String> notes = new ArrayList<>();
         notes.add("Corner portfolio of the mandate frontier (critical line method).");
         Solution s = solution(p.weights(), p.lambda(), p.budgetPrice(), p.state(), dir, ret, notes, sign, p.condition(),
@@ -953,7 +946,7 @@ final class MandateSweep {
     Frontier frontier(java.util.function.Function<double[], double[]> targetsForRange, boolean withInefficient) {
         List<Corner> eff = efficientCorners();
         List<Corner> ineff = withInefficient ? inefficientCorners() : List.of();
-        double lowest = dot(mu, lowEnd().get(0).weights());
+        double lowest = Dense.dotInOrder(mu, lowEnd().get(0).weights());
         double[] targets = targetsForRange.apply(new double[] {lowest, eff.get(0).portfolio().expectedReturn(),
             eff.get(eff.size() - 1).portfolio().expectedReturn()});
         List<Solution> points = new ArrayList<>();

@@ -9,6 +9,7 @@ import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.linalg.Cholesky;
+import org.isorisk.engine.linalg.Dense;
 import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Certificate;
@@ -169,8 +170,8 @@ public final class SolverSession {
         if (lo.outcome() == BoundedSimplex.Outcome.INFEASIBLE || hi.outcome() == BoundedSimplex.Outcome.INFEASIBLE) {
             throw Feasibility.explainRows(p, settings.maxIterations());
         }
-        double min = lo.outcome() == BoundedSimplex.Outcome.OPTIMAL ? dot(mu, lo.x()) : Double.NEGATIVE_INFINITY;
-        double max = hi.outcome() == BoundedSimplex.Outcome.OPTIMAL ? dot(mu, hi.x()) : Double.POSITIVE_INFINITY;
+        double min = lo.outcome() == BoundedSimplex.Outcome.OPTIMAL ? Dense.dotInOrder(mu, lo.x()) : Double.NEGATIVE_INFINITY;
+        double max = hi.outcome() == BoundedSimplex.Outcome.OPTIMAL ? Dense.dotInOrder(mu, hi.x()) : Double.POSITIVE_INFINITY;
         range = new ReturnRange(Math.min(min, max), Math.max(min, max),
                 lo.outcome() == BoundedSimplex.Outcome.OPTIMAL ? lo.x() : null,
                 hi.outcome() == BoundedSimplex.Outcome.OPTIMAL ? hi.x() : null);
@@ -290,13 +291,13 @@ public final class SolverSession {
         }
         int targetRow = p.rows() - 1;
         if (target != null && violationExcept(p, w0, targetRow) <= 1e-12) {
-            double r0 = dot(p.a[targetRow], w0);
+            double r0 = Dense.dotInOrder(p.a[targetRow], w0);
             ReturnRange rr = returnRange();
             double[] end = target > r0 ? rr.maxPortfolio() : rr.minPortfolio();
             if (end == null) {
                 return null;
             }
-            double r1 = dot(p.a[targetRow], end);
+            double r1 = Dense.dotInOrder(p.a[targetRow], end);
             if (Math.abs(r1 - r0) <= 1e-15) {
                 return null;
             }
@@ -388,7 +389,7 @@ public final class SolverSession {
         double[] w = res.w();
         double var = quadratic(w);
         double vol = Math.sqrt(Math.max(0, var));
-        double ret = dot(universe.expectedReturns(), w);
+        double ret = Dense.dotInOrder(universe.expectedReturns(), w);
         Map<String, Integer> rowIndex = new HashMap<>();
         for (int r = 0; r < p.rows(); r++) {
             rowIndex.put(p.names[r], r);
@@ -537,7 +538,7 @@ public final class SolverSession {
         for (int i = 0; i < n; i++) {
             w[i] = y[i] / kappa;
         }
-        double m = dot(mu, w);
+        double m = Dense.dotInOrder(mu, w);
         QpProblem p = problem(m);
         ActiveSetQp.Start start = tightStart(p, w, w);
         ActiveSetQp.Result fin = solveFrom(p, start);
@@ -545,7 +546,7 @@ public final class SolverSession {
         String note = String.format(Locale.ROOT, "Tangency portfolio for a risk-free rate of %s: the allowed portfolio "
                         + "with the highest Sharpe ratio (%.4f), found by the homogenised quadratic program and "
                         + "reported with the multipliers of the minimum-variance problem at its expected return.",
-                Explain.percent(rf), (dot(mu, fin.w()) - rf * budget) / vol);
+                Explain.percent(rf), (Dense.dotInOrder(mu, fin.w()) - rf * budget) / vol);
         return toSolution(p, fin, m, List.of(note));
     }
 
@@ -623,14 +624,6 @@ public final class SolverSession {
             v += w[i] * s;
         }
         return v;
-    }
-
-    private static double dot(double[] a, double[] b) {
-        double s = 0;
-        for (int i = 0; i < a.length; i++) {
-            s += a[i] * b[i];
-        }
-        return s;
     }
 
     /** Σ as read, made exactly symmetric (averaging the two triangles) so that row i is also column i. */

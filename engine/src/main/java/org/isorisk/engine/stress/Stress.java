@@ -12,15 +12,16 @@ import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
 import org.isorisk.engine.error.IsoriskException;
 import org.isorisk.engine.error.NoSolutionException;
+import org.isorisk.engine.linalg.Dense;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Corner;
 import org.isorisk.engine.model.Frontier;
-import org.isorisk.engine.model.RejectedTarget;
-import org.isorisk.engine.model.ReturnRange;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.Objective;
+import org.isorisk.engine.model.RejectedTarget;
+import org.isorisk.engine.model.ReturnRange;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.model.SolverSettings;
 import org.isorisk.engine.solve.Allocator;
@@ -96,7 +97,7 @@ public final class Stress {
             if (b.feasible()) {
                 double[] wb = b.solution().weights();
                 baseRisk = Math.sqrt(Math.max(0, quad(u, wb)));
-                baseReturn = dot(u.expectedReturns(), wb);
+                baseReturn = Dense.dotInOrder(u.expectedReturns(), wb);
             }
             double change = Double.NaN;
             double turnover = Double.NaN;
@@ -339,13 +340,5 @@ public final class Stress {
             v += w[i] * s;
         }
         return v;
-    }
-
-    static double dot(double[] a, double[] b) {
-        double s = 0;
-        for (int i = 0; i < a.length; i++) {
-            s += a[i] * b[i];
-        }
-        return s;
     }
 }
