@@ -92,6 +92,17 @@ public final class Factored {
         return new Factored(u, chol, null, task);
     }
 
+    /**
+     * The same factor and spectrum with an empty memory of solves, for one solve of a book of portfolios that
+     * shares this factorisation: every {@code Σ⁻¹a} is then computed exactly as a freshly factored universe
+     * computes it (several right-hand sides are solved together, as a fresh solve would), so a solve through
+     * {@link Allocator#solveWith} gives bit for bit the answer of {@link Allocator#solve}. Waits for a pending
+     * condition estimate.
+     */
+    Factored fresh() {
+        return new Factored(universe, chol, spectrum(), null);
+    }
+
     private static Spectrum checked(AssetUniverse u, Spectrum sp) {
         if (!Definiteness.positiveDefinite(sp, Definiteness.SINGULAR)) {
             throw notPositiveDefinite(u, u.covariance(), sp);

@@ -165,6 +165,16 @@ final class MandateSweep {
      *                             meet the budget
      */
     static MandateSweep of(AssetUniverse universe, Mandate m, SolverSettings s) {
+        return of(universe, m, s, null);
+    }
+
+    /**
+     * As {@link #of(AssetUniverse, Mandate, SolverSettings)}, with the proof of positive definiteness taken from
+     * a factorisation made once for many solves.
+     *
+     * @param prepared the universe factored ({@link Factored#fresh()}), or null to factor it here
+     */
+    static MandateSweep of(AssetUniverse universe, Mandate m, SolverSettings s, Factored prepared) {
         String why = unsupported(m);
         if (why != null) {
             throw InputException.of("the critical line method takes only the budget, per-asset bounds and fixed "
@@ -235,8 +245,9 @@ final class MandateSweep {
         }
         // Positive definiteness (one Cholesky factorisation) is checked on another thread while the walk runs;
         // the walk itself only ever factors the free block.
-        java.util.concurrent.CompletableFuture<Factored> factoring = s.threads() > 1
-                ? java.util.concurrent.CompletableFuture.supplyAsync(() -> Factored.of(u, s))
+        java.util.concurrent.CompletableFuture<Factored> factoring = prepared != null
+                ? java.util.concurrent.CompletableFuture.completedFuture(prepared)
+                : s.threads() > 1 ? java.util.concurrent.CompletableFuture.supplyAsync(() -> Factored.of(u, s))
                 : java.util.concurrent.CompletableFuture.completedFuture(null);
         return new MandateSweep(u, sigma, factoring, m, s, p, bookFixed);
     }
