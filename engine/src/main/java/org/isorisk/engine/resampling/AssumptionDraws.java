@@ -4,7 +4,7 @@ package org.isorisk.engine.resampling;
  * A source of drawn assumption sets. Every implementation is immutable and thread-safe, and
  * {@link #draw(long)} is a pure function of the seed, the draw index and the inputs given at construction.
  */
-public sealed interface AssumptionDraws permits ParametricDraws, BootstrapDraws {
+public interface AssumptionDraws {
 
     /** The assumption set of draw {@code index} (zero-based), re-estimated from its own sample. */
     DrawnAssumptions draw(long index);
