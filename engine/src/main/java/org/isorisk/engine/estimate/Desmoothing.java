@@ -96,7 +96,8 @@ public final class Desmoothing {
         }
         if (phi < 0) {
             notes.add(String.format(Locale.ROOT, "%s: φ = %.3f is negative, which is no sign of appraisal smoothing; "
-                    + "desmoothing with it lowers the volatility (give φ = 0 to leave the series as it is)", asset, phi));
+                    + "desmoothing with it lowers the volatility (give φ = 0 to leave the series as it is)", asset,
+                    phi));
         }
         return new DesmoothedSeries(asset, phi, estimated, r, observedVol, Math.sqrt(variance(r)), notes);
     }

@@ -74,7 +74,8 @@ public final class UnequalHistories {
                         throw InputException.of("the history has a gap after it starts (return " + (t + 1) + " of "
                                         + len + "); combining histories of unequal length needs each asset's returns "
                                         + "to run from its start to the last row")
-                                .asset(assets.get(j)).fix("fill the gap, or start the asset's history after it").build();
+                                .asset(assets.get(j)).fix("fill the gap, or start the asset's history after it")
+                                .build();
                     }
                 } else if (!Double.isFinite(v)) {
                     throw InputException.of("return " + (t + 1) + " is not finite").asset(assets.get(j)).value(v)

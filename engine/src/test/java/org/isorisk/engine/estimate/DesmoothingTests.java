@@ -86,7 +86,8 @@ class DesmoothingTests {
                 + "(at 1 the desmoothed returns (r*_t - φ r*_(t-1))/(1 - φ) divide by zero) (value '1.0'); fix: give a "
                 + "coefficient such as 0.5, or let it be estimated", e.getMessage());
         assertThrows(InputException.class, () -> Desmoothing.desmooth("Private Equity", r, -1.2));
-        assertThrows(InputException.class, () -> Desmoothing.desmooth("Private Equity", new double[] {0.01, 0.02}, 0.5));
+        assertThrows(InputException.class,
+                () -> Desmoothing.desmooth("Private Equity", new double[] {0.01, 0.02}, 0.5));
         assertThrows(InputException.class,
                 () -> Desmoothing.desmooth("Private Equity", new double[] {0.01, 0.01, 0.01, 0.01}, Double.NaN));
         DesmoothedSeries negative = Desmoothing.desmooth("Private Equity", r, -0.3);

@@ -21,7 +21,7 @@ import org.junit.jupiter.api.Test;
 /** The views blend: the published worked example, the limits of confidence, τ, dependent views, the view weights. */
 class BlendTests {
 
-    /** Half a printed unit of the paper's 0.1 % figures, plus a tenth of it for the transcription's rounding. */
+    /** Half a printed unit of the paper's 0.1 % figures, plus a tenth of it as margin for rounding in copies. */
     private static final double HALF_PRINTED_PERCENT = 0.0005 * 1.1;
     /** The same for the view weights, printed to three decimals. */
     private static final double HALF_PRINTED_THOUSANDTH = 0.0005 * 1.1;
@@ -55,7 +55,7 @@ class BlendTests {
 
     @Test
     void thePublishedWeightsNeedTheUncertaintyOfTheMean() {
-        // The reference notes on He & Litterman (1999): the printed weights are reproduced with Σ + M, not Σ alone.
+        // He & Litterman (1999) optimise with Σ + M: their printed weights are reproduced with it, not with Σ alone.
         // With Σ alone at least one weight misses the printed figure by more than half a printed unit.
         Posterior post = Blend.posterior(HeLitterman.prior(),
                 List.of(HeLitterman.germanyOverEurope(), HeLitterman.canadaOverUsa()), HeLitterman.TAU);

@@ -6,9 +6,8 @@ import java.util.Map;
 
 /**
  * The inputs of He &amp; Litterman's (1999) worked example, "The Intuition Behind Black-Litterman Model
- * Portfolios", Goldman Sachs Investment Management Research, 1999): seven equity markets, δ = 2.5, τ = 0.05,
- * Σ = diag(vol)·corr·diag(vol), two relative views; the paper's inputs as transcribed in public reproductions of
- * it.
+ * Portfolios": seven equity markets, δ = 2.5, τ = 0.05, Σ = diag(vol)·corr·diag(vol), two relative views; the
+ * paper's inputs as reproduced in public copies of it.
  */
 final class HeLitterman {
     private HeLitterman() {
