@@ -7,6 +7,9 @@
  * correlation), expected returns (historical, supplied, or implied by a reference portfolio) and a data-quality
  * assessment returned as values ({@link org.isorisk.engine.estimate.Issue}). {@link org.isorisk.engine.estimate.Repair}
  * finds the nearest correlation matrix (Higham 2002) for a covariance or correlation matrix that is not positive
- * semi-definite, keeping the volatilities. No I/O here: reading and writing tables lives in {@code engine.io}.
+ * semi-definite, keeping the volatilities. {@link org.isorisk.engine.estimate.ReturnMoments} runs the estimators on
+ * plain arrays (for re-estimating drawn samples); {@link org.isorisk.engine.estimate.Desmoothing} desmooths
+ * appraisal-based returns (Geltner 1993) and {@link org.isorisk.engine.estimate.UnequalHistories} combines histories
+ * that start at different dates (Stambaugh 1997). No I/O here: reading and writing tables lives in {@code engine.io}.
  */
 package org.isorisk.engine.estimate;
