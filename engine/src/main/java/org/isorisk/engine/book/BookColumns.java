@@ -4,7 +4,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.isorisk.engine.error.InputException;
-import org.isorisk.engine.io.Names;
 
 /**
  * The columns of a book file and what each means. Required: {@code id}, {@code policy} (a path relative to the book
@@ -60,7 +59,7 @@ public final class BookColumns {
             if (index(r) < 0) {
                 InputException.Builder b = InputException.of("no column named '" + r + "' in the header (row "
                         + headerRow + ")").file(file).value(String.join(",", header));
-                String near = Names.closest(r, header);
+                String near = nearest(r, header);
                 throw b.fix(near != null ? "did you mean '" + near + "'? Name the column " + r
                         : "a book needs the columns id, policy and target_return (see the README, section Book file)")
                         .build();
@@ -90,7 +89,7 @@ public final class BookColumns {
                 }
             }
             if (prefix == null) {
-                String near = Names.closest(h, known);
+                String near = nearest(h, known);
                 warnings.add(file + ": column '" + h + "' is not a book column and is ignored"
                         + (near != null ? " (did you mean '" + near + "'?)" : ""));
                 continue;
@@ -134,5 +133,39 @@ public final class BookColumns {
             }
         }
         return -1;
+    }
+
+    /** The name of {@code among} within two edits of {@code name} (ignoring case), or null. */
+    static String nearest(String name, List<String> among) {
+        String best = null;
+        int bestDistance = 3;
+        for (String a : among) {
+            int d = distance(name.toLowerCase(Locale.ROOT), a.toLowerCase(Locale.ROOT));
+            if (d < bestDistance) {
+                best = a;
+                bestDistance = d;
+            }
+        }
+        return best;
+    }
+
+    /** Levenshtein distance (insertions, deletions, substitutions). */
+    private static int distance(String a, String b) {
+        int[] prev = new int[b.length() + 1];
+        int[] cur = new int[b.length() + 1];
+        for (int j = 0; j <= b.length(); j++) {
+            prev[j] = j;
+        }
+        for (int i = 1; i <= a.length(); i++) {
+            cur[0] = i;
+            for (int j = 1; j <= b.length(); j++) {
+                int sub = prev[j - 1] + (a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1);
+                cur[j] = Math.min(sub, Math.min(prev[j] + 1, cur[j - 1] + 1));
+            }
+            int[] t = prev;
+            prev = cur;
+            cur = t;
+        }
+        return prev[b.length()];
     }
 }
