@@ -416,6 +416,10 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
 
     /** A rate (decimal, or percent under --units percent) in a cell. */
     private double rate(Work w, int column, String text) {
+        double fast = NumberText.fastOrNaN(text);
+        if (!Double.isNaN(fast)) {
+            return spec.units().rate(fast);
+        }
         NumberText.Problem problem = NumberText.problem(text);
         if (problem != null) {
             throw w.error(column, problem.problem()).value(text).fix(problem.fix()).build();
