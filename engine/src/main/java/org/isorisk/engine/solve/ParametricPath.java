@@ -24,9 +24,23 @@ import org.isorisk.engine.model.Certificate;
  * @param minimum     index of the corner at the minimum of the objective over all targets (the minimum-variance
  *                    portfolio for plain variance): the efficient branch runs from it upwards
  * @param threshold   the certificate threshold used (the settings' numerical tolerance)
+ * @param counts      how much work the walk did
  */
 record ParametricPath(ParametricProblem problem, List<Corner> corners, List<Piece> pieces, int minimum,
-                      double threshold) {
+                      double threshold, Counts counts) {
+
+    /**
+     * The work of a walk, for benchmarks and tests.
+     *
+     * @param startChanges events (ratio tests ending in a change) while the linear term moved from the start
+     *                     vertex's to the problem's
+     * @param walkChanges  events along the target, both branches (the two ends included)
+     * @param exchanges    joining constraints that were dependent on the working set (Best's exchange, or the end
+     *                     of the range)
+     * @param zeroSteps    events taken at the same point as the one before (degenerate corners)
+     */
+    record Counts(int startChanges, int walkChanges, int exchanges, int zeroSteps) {
+    }
 
     /** What a constraint reference points at. */
     enum Kind {

@@ -168,6 +168,9 @@ final class ParametricQp {
     private final double[] za;
     private final double[] zb;
     private int iterations;
+    private int startChanges;
+    private int exchanges;
+    private int zeroSteps;
 
     private ParametricQp(ParametricProblem p, SolverSettings settings) {
         this.p = p;
@@ -388,6 +391,8 @@ final class ParametricQp {
             }
             if (ev.step > SAME_POINT) {
                 seen.clear();
+            } else {
+                zeroSteps++;
             }
             advance(ev.step);
             if (!apply(ev)) {
@@ -404,6 +409,7 @@ final class ParametricQp {
         dq = null;
         t = 0;
         solvePoint();
+        startChanges = iterations;
     }
 
     /** Rebuilds the factor and Y for a saved working set (the second walk starts from the minimum again). */
@@ -490,6 +496,7 @@ final class ParametricQp {
                 before = new Before(state.clone(), active.clone());
                 seen.clear();
             } else {
+                zeroSteps++;
                 advance(ev.step);
             }
             if (!apply(ev)) {
@@ -777,6 +784,7 @@ final class ParametricQp {
     private boolean block(ParametricPath.ConstraintRef l, int eps) {
         double[][] phi = dependence(l);
         if (phi != null) {
+            exchanges++;
             ParametricPath.ConstraintRef k = leaving(phi, eps);
             if (k == null) {
                 return false;
@@ -1259,7 +1267,8 @@ final class ParametricQp {
             pieces.add(piece(up.get(j - 1), up.get(j - 1).m, r.m, +1));
             corners.add(corner(r, r.changes, r.unique, certRows));
         }
-        return new ParametricPath(p, corners, pieces, minimum, settings.numericalTolerance());
+        return new ParametricPath(p, corners, pieces, minimum, settings.numericalTolerance(),
+                new ParametricPath.Counts(startChanges, iterations - startChanges, exchanges, zeroSteps));
     }
 
     /** Changes between the working sets below and above a target (the target row itself not counted). */

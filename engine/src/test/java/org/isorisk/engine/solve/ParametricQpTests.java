@@ -228,6 +228,7 @@ class ParametricQpTests {
             }
             out.add(new LinearCase(name, u, m, q));
         }
+        out.add(degenerate(5, true));
         return out;
     }
 
@@ -423,9 +424,15 @@ class ParametricQpTests {
             theirs.put(line.substring(0, comma), Double.parseDouble(line.substring(comma + 1).trim()));
         }
         Map<String, Double> ours = byName(c, pt);
+        // the scale of the multipliers: the largest of them, or of the objective's gradient 2Σw − 2q when they
+        // all vanish (a tracking-error target met by the benchmark itself)
         double scale = 0;
         for (double v : theirs.values()) {
             scale = Math.max(scale, Math.abs(v));
+        }
+        double[] sw = Dense.multiplySymmetric(c.problem().sigma, pt.weights());
+        for (int i = 0; i < n; i++) {
+            scale = Math.max(scale, Math.abs(2 * sw[i]) + Math.abs(2 * c.problem().linear[i]));
         }
         for (Map.Entry<String, Double> e : theirs.entrySet()) {
             double tol = solver.equals("quadprog") ? 1e-7 * Math.max(Math.abs(e.getValue()), 1e-3 * scale)
@@ -469,5 +476,363 @@ class ParametricQpTests {
             throw new AssertionError("timed out: " + String.join(" ", cmd));
         }
         assertEquals(0, p.exitValue(), () -> String.join(" ", cmd) + " failed:\n" + out);
+    }
+
+    // ------------------------------------------------------------------ the envelope theorem
+
+    @Test
+    void everyMultiplierIsTheDerivativeOfTheOptimalObjectiveInItsLimit() {
+        // Envelope theorem (e.g. Luenberger & Ye, "Linear and Nonlinear Programming", sensitivity section; from
+        // memory): ∂V*/∂b of a convex QP is the constraint's multiplier in the convention of the certificate. Each
+        // limit is moved by ±h and the problem re-solved (a fresh walk), V* compared by central differences.
+        double h = 1e-6;
+        int checked = 0;
+        for (LinearCase c : linearCases().subList(0, 2)) {
+            ParametricProblem p = c.problem();
+            ParametricPath path = ParametricQp.walk(p, true, SolverSettings.defaults());
+            double lo = path.lowest();
+            double hi = path.highest();
+            for (double f : new double[] {0.13, 0.52, 0.91}) {
+                ParametricPath.Point pt = path.at(lo + f * (hi - lo));
+                if (!pt.multipliersUnique()) {
+                    continue;
+                }
+                double m = pt.target();
+                String at = c.name() + " at " + m;
+                double dm = (objectiveAt(p, m + h) - objectiveAt(p, m - h)) / (2 * h);
+                assertClose(pt.targetPrice(), dm, at + ": target");
+                checked++;
+                for (int r = 0; r < p.rowCount(); r++) {
+                    if (!pt.rowActive()[r]) {
+                        assertEquals(0.0, pt.rowPrices()[r], 0.0, at + ": row " + r + " outside the working set");
+                        continue;
+                    }
+                    double d = (objectiveAt(withRowLimit(p, r, h), m) - objectiveAt(withRowLimit(p, r, -h), m)) / (2 * h);
+                    assertClose(pt.rowPrices()[r], d, at + ": row " + p.rows.get(r).name());
+                    checked++;
+                }
+                for (int i = 0; i < p.n; i++) {
+                    byte st = pt.state()[i];
+                    if (st == ParametricQp.FREE) {
+                        assertEquals(0.0, pt.boundPrices()[i], 0.0);
+                        continue;
+                    }
+                    boolean lower = st == ParametricQp.LOWER;
+                    double d = (objectiveAt(withBound(p, i, lower, h), m) - objectiveAt(withBound(p, i, lower, -h), m))
+                            / (2 * h);
+                    assertClose(pt.boundPrices()[i], d, at + ": " + (lower ? "lower" : "upper") + " bound " + i);
+                    assertTrue(lower ? pt.boundPrices()[i] >= 0 : pt.boundPrices()[i] <= 0, at + ": sign at bound " + i);
+                    checked++;
+                }
+            }
+        }
+        assertTrue(checked >= 40, "multipliers checked: " + checked);
+    }
+
+    private static void assertClose(double expected, double actual, String what) {
+        assertEquals(expected, actual, 1e-7 * Math.max(1, Math.abs(expected)), what);
+    }
+
+    private static double objectiveAt(ParametricProblem p, double m) {
+        return ParametricQp.walk(p, true, SolverSettings.defaults()).at(m).objective();
+    }
+
+    private static ParametricProblem withRowLimit(ParametricProblem p, int r, double h) {
+        List<LinearConstraint> rows = new ArrayList<>(p.rows);
+        LinearConstraint c = rows.get(r);
+        rows.set(r, new LinearConstraint(c.name(), c.coefficients(), c.relation(), c.limit() + h));
+        return new ParametricProblem(p.sigma, p.linear, p.mu, rows, p.lo, p.hi);
+    }
+
+    private static ParametricProblem withBound(ParametricProblem p, int i, boolean lower, double h) {
+        double[] lo = p.lo.clone();
+        double[] hi = p.hi.clone();
+        if (lower) {
+            lo[i] += h;
+        } else {
+            hi[i] += h;
+        }
+        return new ParametricProblem(p.sigma, p.linear, p.mu, p.rows, lo, hi);
+    }
+
+    // ------------------------------------------------------------------ the shape of the frontier
+
+    @Test
+    void betweenCornersWeightsAreAffineAndTheObjectiveIsQuadraticAndConvexInTheTarget() {
+        // Follows from the KKT system being linear in m on a piece (Best 1996): the midpoint of a piece, solved on
+        // its own, is the average of the corners' weights, and V*(m) has slope ∂V*/∂m (envelope theorem) that is
+        // affine on the piece and never falls from one piece to the next (V* is convex in m).
+        for (LinearCase c : linearCases()) {
+            ParametricPath path = ParametricQp.walk(c.problem(), true, SolverSettings.defaults());
+            List<ParametricPath.Corner> cs = path.corners();
+            double lastSlope = Double.NEGATIVE_INFINITY;
+            for (int j = 0; j + 1 < cs.size(); j++) {
+                ParametricPath.Corner a = cs.get(j);
+                ParametricPath.Corner b = cs.get(j + 1);
+                ParametricPath.Piece pc = path.pieces().get(j);
+                double dm = b.target() - a.target();
+                String what = c.name() + " piece " + j;
+                assertTrue(dm > 0, what + ": corners increase");
+                ParametricPath.Point mid = path.at(0.5 * (a.target() + b.target()));
+                assertTrue(mid.certificate().worst() <= 1e-9, what + ": " + mid.certificate());
+                for (int i = 0; i < a.weights().length; i++) {
+                    assertEquals(0.5 * (a.weights()[i] + b.weights()[i]), mid.weights()[i], 1e-12, what + " asset " + i);
+                }
+                double ta = pc.targetPriceAt(a.target());
+                double tb = pc.targetPriceAt(b.target());
+                // V*(b) − V*(a) is the integral of the affine slope; the midpoint sits below the chord by Δm·Δτ/8.
+                assertEquals(b.objective() - a.objective(), 0.5 * (ta + tb) * dm, 1e-10 * Math.max(1, Math.abs(b.objective())),
+                        what + ": objective against its slope");
+                assertEquals(0.5 * (a.objective() + b.objective()) - dm * (tb - ta) / 8, mid.objective(), 1e-12, what
+                        + ": midpoint of the quadratic");
+                assertTrue(tb >= ta - 1e-9 * Math.max(1, Math.abs(ta)), what + ": slope rises along the piece");
+                assertTrue(ta >= lastSlope - 1e-9 * Math.max(1, Math.abs(ta)), what + ": slope rises across the corner");
+                lastSlope = tb;
+            }
+            assertEquals(0.0, cs.get(path.minimum()).targetPrice(), 1e-12, c.name() + ": no price at the minimum");
+        }
+    }
+
+    // ------------------------------------------------------------------ degenerate mandates
+
+    /**
+     * A degenerate mandate over 32 invented assets in four groups of eight (illustrative numbers): every asset in
+     * [0, 12 %] except the second group's, capped at 6.875 % so that the group's limit of 55 % equals the sum of
+     * its members' bounds; the first three groups at most 55 %, the third at least 10 %, the fourth at most 96 %
+     * (again the sum of its members' bounds); expected returns rounded to half a percent, so that many tie, also
+     * at the top of the range.
+     */
+    static LinearCase degenerate(long seed, boolean linear) {
+        int n = 32;
+        AssetUniverse base = FactorModels.universe(n, seed);
+        double[] mu = base.expectedReturns();
+        for (int i = 0; i < n; i++) {
+            mu[i] = Math.rint(mu[i] * 200) / 200;
+        }
+        AssetUniverse u = new AssetUniverse(base.assets(), mu, base.covariance());
+        double[] lo = new double[n];
+        double[] hi = new double[n];
+        java.util.Arrays.fill(hi, 0.12);
+        for (int i = 8; i < 16; i++) {
+            hi[i] = 0.55 / 8;
+        }
+        List<org.isorisk.engine.model.Group> groups = new ArrayList<>();
+        for (int g = 0; g < 4; g++) {
+            List<Integer> members = new ArrayList<>();
+            for (int i = 8 * g; i < 8 * g + 8; i++) {
+                members.add(i);
+            }
+            groups.add(new org.isorisk.engine.model.Group("G" + (g + 1), members, g == 2 ? 0.10 : Double.NEGATIVE_INFINITY,
+                    g == 3 ? 0.96 : 0.55));
+        }
+        Mandate m = new Mandate(1.0, lo, hi, Map.of(), groups, List.of());
+        double[] q = null;
+        if (linear) {
+            double[] bench = new double[n];
+            java.util.Arrays.fill(bench, 1.0 / n);
+            q = Dense.multiplySymmetric(u.covariance(), bench);
+        }
+        return new LinearCase("degenerate_" + seed + (linear ? "_tracking" : ""), u, m, q);
+    }
+
+    @Test
+    void degenerateMandatesAreWalkedToTheEndWithEveryCornerCertified() {
+        // Invariants that follow from the KKT conditions (no outside reference): every corner certified by the
+        // project's one certificate, the pieces joining the corners continuously, the ends of the range those of
+        // the bounded simplex (checked inside the walk), and non-unique multipliers flagged where a group limit
+        // binds together with all its members' bounds.
+        int corners = 0;
+        int notUnique = 0;
+        int exchanges = 0;
+        int zeroSteps = 0;
+        for (long seed = 1; seed <= 16; seed++) {
+            LinearCase c = degenerate(seed, seed % 2 == 0);
+            ParametricPath path = ParametricQp.walk(c.problem(), true, SolverSettings.defaults());
+            exchanges += path.counts().exchanges();
+            zeroSteps += path.counts().zeroSteps();
+            List<ParametricPath.Corner> cs = path.corners();
+            for (int j = 0; j < cs.size(); j++) {
+                ParametricPath.Corner k = cs.get(j);
+                String what = c.name() + " corner " + j + " at " + k.target();
+                assertTrue(k.certificate().passes() && k.certificate().worst() <= 1e-9, what + ": " + k.certificate());
+                corners++;
+                notUnique += k.multipliersUnique() ? 0 : 1;
+                if (j > 0) {
+                    double[] fromBelow = path.pieces().get(j - 1).weightsAt(k.target());
+                    for (int i = 0; i < fromBelow.length; i++) {
+                        assertEquals(k.weights()[i], fromBelow[i], 1e-10, what + ": piece below, asset " + i);
+                    }
+                }
+                if (j + 1 < cs.size()) {
+                    double[] fromAbove = path.pieces().get(j).weightsAt(k.target());
+                    for (int i = 0; i < fromAbove.length; i++) {
+                        assertEquals(k.weights()[i], fromAbove[i], 1e-10, what + ": piece above, asset " + i);
+                    }
+                }
+            }
+            assertTrue(!cs.get(0).multipliersUnique() && !cs.get(cs.size() - 1).multipliersUnique(),
+                    c.name() + ": the ends' multipliers are one-sided, never unique");
+        }
+        // the degenerate cases are really met: dependent joins beyond the two ends of each walk (Best's exchange,
+        // e.g. a group limit reached with its members' bounds), and multipliers flagged as not unique
+        assertTrue(corners > 16 * 10 && notUnique > 16 * 2 && exchanges > 16 * 2, corners
+                + " corners, " + notUnique + " not unique, " + exchanges + " exchanges, " + zeroSteps + " zero steps");
+    }
+
+    @Test
+    void mirrorImageAssetsAnAssetAtItsBoundWithZeroPriceAndTiesAtTheTopAreWalkedExactly() {
+        // Three hand-built degenerate cases of the critical line tests, now with a group limit and (for the first)
+        // a linear term, against ojAlgo's active-set QP (support/OjAlgoReference, weights) at several targets.
+        // (1) Assets A and B are exchangeable, so every event happens to both at once: zero-length steps.
+        int n = 6;
+        double[] mu = {0.07, 0.07, 0.05, 0.04, 0.03, 0.02};
+        double[] vol = {0.20, 0.20, 0.15, 0.10, 0.07, 0.04};
+        double[][] s = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                double rho = i == j ? 1 : (i < 2 && j < 2) ? 0.5 : 0.2;
+                s[i][j] = rho * vol[i] * vol[j];
+            }
+        }
+        AssetUniverse mirror = new AssetUniverse(List.of("A", "B", "C", "D", "E", "F"), mu, s);
+        Mandate mm = withGroup(FactorModels.boxed(n, 0.0, 0.3), List.of(2, 3), 0.45);
+        double[] qm = Dense.multiplySymmetric(s, new double[] {0.1, 0.1, 0.2, 0.2, 0.2, 0.2}); // tracking error
+        ParametricPath pm = walk(mirror, mm, qm, true);
+        assertTrue(pm.counts().zeroSteps() > 0, "two assets change at one corner: " + pm.counts());
+        for (ParametricPath.Corner c : pm.corners()) {
+            assertEquals(c.weights()[0], c.weights()[1], 1e-12, "symmetry kept at " + c.target());
+            assertTrue(c.certificate().worst() <= 1e-9, c.certificate().toString());
+        }
+        againstOjAlgo(mirror, mm, qm, pm, "mirror");
+        // (2) Σ(½, ½, 0) = 0.025·1 (worked out by hand): without a linear term the minimum-variance portfolio puts
+        // exactly nothing in C, which sits at its lower bound with a zero multiplier.
+        double[][] s3 = {{0.04, 0.01, 0.025}, {0.01, 0.04, 0.025}, {0.025, 0.025, 0.09}};
+        AssetUniverse three = new AssetUniverse(List.of("A", "B", "C"), new double[] {0.05, 0.06, 0.09}, s3);
+        Mandate m3 = FactorModels.boxed(3, 0.0, 1.0);
+        ParametricPath p3 = walk(three, m3, null, true);
+        ParametricPath.Corner min = p3.corners().get(p3.minimum());
+        double[] half = {0.5, 0.5, 0.0};
+        for (int i = 0; i < 3; i++) {
+            assertEquals(half[i], min.weights()[i], 1e-12, "minimum variance, asset " + i);
+        }
+        assertEquals(0.025, min.variance(), 1e-12);
+        assertEquals(0.0, min.boundPrices()[2], 1e-12, "C at its bound with a zero price");
+        againstOjAlgo(three, m3, null, p3, "at bound");
+        // (3) Three assets tie for the highest return: the top end is the least-risk mix of them (each at 30 %),
+        // the rest going to the next best, and the walk ends there.
+        AssetUniverse base = FactorModels.universe(12, 9);
+        double[] mt = base.expectedReturns();
+        double top = java.util.Arrays.stream(mt).max().orElseThrow() + 0.01;
+        mt[2] = top;
+        mt[7] = top;
+        mt[10] = top;
+        AssetUniverse tied = new AssetUniverse(base.assets(), mt, base.covariance());
+        Mandate mt12 = withGroup(FactorModels.boxed(12, 0.0, 0.3), List.of(0, 1, 2, 3), 0.5);
+        ParametricPath pt = walk(tied, mt12, null, true);
+        ParametricPath.Corner end = pt.corners().get(pt.corners().size() - 1);
+        for (int i : new int[] {2, 7, 10}) {
+            assertEquals(0.3, end.weights()[i], 1e-12, "tied asset " + i + " full");
+        }
+        againstOjAlgo(tied, mt12, null, pt, "ties at the top");
+    }
+
+    private static Mandate withGroup(Mandate m, List<Integer> members, double max) {
+        return new Mandate(m.budget(), m.lower(), m.upper(), Map.of(),
+                List.of(new org.isorisk.engine.model.Group("G", members, Double.NEGATIVE_INFINITY, max)), List.of());
+    }
+
+    private static void againstOjAlgo(AssetUniverse u, Mandate m, double[] q, ParametricPath path, String what) {
+        for (double f : new double[] {0.0, 0.05, 0.3, 0.6, 0.95, 1.0}) {
+            double t = path.lowest() + f * (path.highest() - path.lowest());
+            ParametricPath.Point pt = path.at(t);
+            assertTrue(pt.certificate().worst() <= 1e-9, what + " at " + t + ": " + pt.certificate());
+            double[] ref = org.isorisk.engine.support.OjAlgoReference.weights(u, m, t, q);
+            org.junit.jupiter.api.Assertions.assertNotNull(ref, what + ": ojAlgo at " + t);
+            for (int i = 0; i < ref.length; i++) {
+                assertEquals(ref[i], pt.weights()[i], 1e-7, what + " at " + t + ", asset " + i);
+            }
+        }
+    }
+
+    // ------------------------------------------------------------------ semi-definite Σ and refusals
+
+    /** Four risky assets and a riskless one (zero variance and covariances: Σ is only semi-definite). */
+    private static AssetUniverse withRiskless(double risklessReturn) {
+        double[] vol = {0.18, 0.12, 0.07, 0.22};
+        double[][] s = new double[5][5];
+        for (int i = 0; i < 4; i++) {
+            for (int j = 0; j < 4; j++) {
+                s[i][j] = (i == j ? 1 : 0.3) * vol[i] * vol[j];
+            }
+        }
+        return new AssetUniverse(List.of("Equity", "Credit", "Bonds", "Emerging", "Deposit"),
+                new double[] {0.07, 0.05, 0.03, 0.09, risklessReturn}, s);
+    }
+
+    @Test
+    void aSemiDefiniteCovarianceIsWalkedWhileTheFreeBlockStaysDefiniteAndRefusedClearlyWhenItDoesNot() {
+        // The riskless deposit has the highest return (an invented promotional rate): it sits at its 10 % cap along
+        // the whole efficient frontier, the free block never holds it, and the walk is exact (against ojAlgo, which
+        // accepts a semi-definite Σ).
+        Mandate capped = new Mandate(1.0, new double[5], new double[] {1, 1, 1, 1, 0.1}, Map.of(), List.of(),
+                List.of());
+        AssetUniverse high = withRiskless(0.095);
+        ParametricPath path = walk(high, capped, null, false);
+        for (ParametricPath.Corner c : path.corners()) {
+            assertEquals(ParametricQp.UPPER, c.state()[4], "the deposit at its cap at " + c.target());
+            assertTrue(c.certificate().worst() <= 1e-9, c.certificate().toString());
+        }
+        againstOjAlgo(high, capped, null, path, "semi-definite");
+        // Below the minimum-variance return (the inefficient branch) the deposit leaves its cap: the free block (Σ
+        // restricted to the assets free to move) would be singular, so the walk refuses, naming the asset.
+        org.isorisk.engine.error.NoSolutionException e = org.junit.jupiter.api.Assertions.assertThrows(
+                org.isorisk.engine.error.NoSolutionException.class, () -> walk(high, capped, null, true));
+        assertEquals(org.isorisk.engine.error.NoSolutionException.Reason.NOT_CONVEX, e.reason());
+        assertTrue(e.getMessage().startsWith("the reduced Hessian is singular: the covariance block of the assets "
+                + "free to move becomes singular when asset number 5 joins them"), e.getMessage());
+    }
+
+    @Test
+    void anIndefiniteCovarianceAnInfeasibleMandateAnUnboundedReturnAndEqualReturnsAreReportedAsSuch() {
+        AssetUniverse u = FactorModels.universe(6, 3);
+        double[][] bad = u.covariance();
+        bad[0][1] = bad[1][0] = 2 * Math.sqrt(bad[0][0] * bad[1][1]); // a "correlation" of 2
+        org.isorisk.engine.error.NoSolutionException e = org.junit.jupiter.api.Assertions.assertThrows(
+                org.isorisk.engine.error.NoSolutionException.class,
+                () -> ParametricQp.walk(new ParametricProblem(bad, null, u.expectedReturns(),
+                        FactorModels.boxed(6, 0, 1).rows(u.assets()), new double[6], filled(6, 1.0)), false, null));
+        assertEquals(org.isorisk.engine.error.NoSolutionException.Reason.NOT_CONVEX, e.reason());
+        assertTrue(e.getMessage().startsWith("the covariance matrix is not positive semi-definite (smallest "
+                + "eigenvalue -"), e.getMessage());
+        // two assets must hold 90 % between them but may hold 30 % each
+        double[] pair = new double[6];
+        pair[0] = 1;
+        pair[1] = 1;
+        Mandate infeasible = new Mandate(1.0, new double[6], filled(6, 0.3), Map.of(), List.of(),
+                List.of(new LinearConstraint("pair", pair, Relation.AT_LEAST, 0.9)));
+        e = org.junit.jupiter.api.Assertions.assertThrows(org.isorisk.engine.error.NoSolutionException.class,
+                () -> walk(u, infeasible, null, false));
+        assertEquals(org.isorisk.engine.error.NoSolutionException.Reason.INFEASIBLE, e.reason());
+        assertEquals("no portfolio meets these constraints together: pair (>= 90.00 %) together with the asset "
+                + "bounds and fixed weights; fix: relax one of them", e.getMessage());
+        // the budget alone: the minimum exists, but the target can rise without limit
+        e = org.junit.jupiter.api.Assertions.assertThrows(org.isorisk.engine.error.NoSolutionException.class,
+                () -> walk(u, Mandate.fullyInvested(6), null, false));
+        assertEquals("the expected return can rise without limit under these constraints, so the frontier has no "
+                + "upper end; fix: bound every asset (a min and a max) or add rows that limit the weights",
+                e.getMessage());
+        // equal expected returns: μ'w is the budget, so the frontier is one point whose target price is not unique
+        AssetUniverse flat = new AssetUniverse(u.assets(), filled(6, 0.05), u.covariance());
+        ParametricPath one = walk(flat, FactorModels.boxed(6, 0, 0.5), null, true);
+        assertEquals(1, one.corners().size());
+        assertEquals(0.05, one.corners().get(0).target(), 1e-15);
+        assertTrue(!one.corners().get(0).multipliersUnique());
+        assertTrue(one.corners().get(0).certificate().worst() <= 1e-9, one.corners().get(0).certificate().toString());
+    }
+
+    private static double[] filled(int n, double v) {
+        double[] out = new double[n];
+        java.util.Arrays.fill(out, v);
+        return out;
     }
 }
