@@ -1,7 +1,6 @@
 package org.isorisk.engine.solve;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
 import org.isorisk.engine.model.AssetUniverse;
@@ -139,10 +138,5 @@ final class ParametricProblem {
             v += w[i] * (sigmaW[i] - 2 * linear[i]);
         }
         return v;
-    }
-
-    /** True when the objective has a linear term. */
-    boolean hasLinearTerm() {
-        return Arrays.stream(linear).anyMatch(v -> v != 0);
     }
 }

@@ -158,7 +158,6 @@ final class ParametricQp {
     private final double[] lam;
     private final double[] dlam;
     private double[] g;
-    private double[] gd;
 
     private final double[] cos;
     private final double[] sin;
@@ -626,7 +625,6 @@ final class ParametricQp {
         int bland(int n) {
             return kind == BLOCK_ROW || kind == RELEASE_ROW ? n + index : index;
         }
-
     }
 
     /**
@@ -1096,7 +1094,7 @@ final class ParametricQp {
         }
         double[][] prod = Dense.multiplySymmetric(sigma, new double[][] {x, dx});
         g = prod[0];
-        gd = prod[1];
+        double[] gd = prod[1];
         for (int i = 0; i < n; i++) {
             if (state[i] == FREE) {
                 lam[i] = 0;
