@@ -66,14 +66,12 @@ public final class OjAlgoReference {
             }
             rows += (Double.isFinite(m.upper(i)) ? 1 : 0) + (Double.isFinite(m.lower(i)) ? 1 : 0);
         }
+        // groups and general rows; fixed weights are read from equal bounds only, as before
         java.util.List<org.isorisk.engine.model.LinearConstraint> general = new java.util.ArrayList<>();
         for (org.isorisk.engine.model.LinearConstraint c : m.rows(u.assets())) {
             if (!c.name().equals("budget") && !c.name().startsWith("fixed:")) {
                 general.add(c);
             }
-        }
-        if (!m.fixed().isEmpty()) {
-            throw new IllegalArgumentException("fixed weights: give them as equal bounds");
         }
         for (org.isorisk.engine.model.LinearConstraint c : general) {
             rows += c.relation() == org.isorisk.engine.model.Relation.EQUAL ? 2 : 1;
