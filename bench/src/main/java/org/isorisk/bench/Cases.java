@@ -17,6 +17,7 @@ public final class Cases {
         add(cases, new ClosedFormCase());
         add(cases, new CriticalLineCase());
         add(cases, new QpCase());
+        add(cases, new ParametricCase());
         add(cases, new EstimateCase());
         add(cases, new RebalanceStressCase());
         add(cases, new StartupCase());

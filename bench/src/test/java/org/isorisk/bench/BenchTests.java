@@ -66,6 +66,19 @@ class BenchTests {
     }
 
     @Test
+    void aTinyRunOfTheParametricCasePrintsItsTable() {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        int code = Bench.run(new String[] {"parametric", "--sizes", "12", "--reps", "1", "--warmup", "0",
+            "--no-reference"}, print(out), print(new ByteArrayOutputStream()));
+        assertEquals(0, code);
+        String text = out.toString(StandardCharsets.UTF_8);
+        assertTrue(text.contains("exact ms"), text);
+        assertTrue(text.lines().anyMatch(l -> l.trim().startsWith("12 bench")), text);
+        assertTrue(text.lines().anyMatch(l -> l.trim().startsWith("12 market")), text);
+        assertTrue(!text.contains("WARNING"), text);
+    }
+
+    @Test
     void aTinyRunOfTheQpCasePrintsItsTable() {
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         int code = Bench.run(new String[] {"qp", "--sizes", "40", "--reps", "1", "--warmup", "0", "--no-reference"},

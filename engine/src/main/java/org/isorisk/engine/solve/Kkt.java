@@ -61,15 +61,29 @@ public final class Kkt {
     static Certificate certifyProduct(double[] sigmaW, double[] w, List<LinearConstraint> rows, double[] limits,
                                       double[] rowPrices, double[] lower, double[] upper, double[] lowerPrices,
                                       double[] upperPrices, double condition, double threshold, boolean convex) {
+        return certifyProduct(sigmaW, null, w, rows, limits, rowPrices, lower, upper, lowerPrices, upperPrices,
+                condition, threshold, convex);
+    }
+
+    /**
+     * The same certificate for the objective {@code w'Σw − 2q'w} with a linear term (surplus variance, tracking
+     * error, where {@code q} is the covariance of the assets with the liability over the funded ratio, or
+     * {@code Σb}): stationarity becomes {@code 2Σw − 2q = Σ_k s_k a_k + sl + su}, and each asset's scale counts
+     * {@code |2q_i|} beside {@code |2(Σw)_i|}. The multipliers are still ∂V*∂limit of that objective.
+     *
+     * @param linear {@code q}, or null for none (not modified)
+     */
+    static Certificate certifyProduct(double[] sigmaW, double[] linear, double[] w, List<LinearConstraint> rows,
+                                      double[] limits, double[] rowPrices, double[] lower, double[] upper,
+                                      double[] lowerPrices, double[] upperPrices, double condition, double threshold,
+                                      boolean convex) {
         int n = w.length;
-        double[] grad = new double[n];
-        for (int i = 0; i < n; i++) {
-            grad[i] = 2 * sigmaW[i];
-        }
-        double[] residual = grad.clone();
+        double[] residual = new double[n];
         double[] scale = new double[n];
         for (int i = 0; i < n; i++) {
-            scale[i] = Math.abs(grad[i]);
+            double q = linear == null ? 0 : 2 * linear[i];
+            residual[i] = 2 * sigmaW[i] - q;
+            scale[i] = Math.abs(2 * sigmaW[i]) + Math.abs(q);
         }
         double primal = 0;
         double dual = 0;

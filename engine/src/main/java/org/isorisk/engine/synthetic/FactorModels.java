@@ -7,7 +7,10 @@ import java.util.Map;
 import java.util.Random;
 import java.util.SplittableRandom;
 import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.Group;
+import org.isorisk.engine.model.LinearConstraint;
 import org.isorisk.engine.model.Mandate;
+import org.isorisk.engine.model.Relation;
 
 /**
  * Synthetic asset universes with a dense factor-model covariance {@code Σ = B F B' + D} and expected returns
@@ -157,6 +160,33 @@ public final class FactorModels {
     /** The benchmark mandate: fully invested, long-only, each asset at most {@code max(5 %, 3/n)}. */
     public static Mandate longOnlyCapped(int n) {
         return boxed(n, 0.0, Math.max(0.05, 3.0 / n));
+    }
+
+    /**
+     * The benchmark mandate with groups: {@link #longOnlyCapped}, the first third of the assets between 20 % and
+     * 45 % together, the last quarter at most 25 %, and a general row: a weighted sum of the middle assets (weights
+     * 0.5, 0.75, 1 in turn) at most 30 %. Needs at least 4 assets.
+     */
+    public static Mandate grouped(int n) {
+        if (n < 4) {
+            throw new IllegalArgumentException("need at least 4 assets");
+        }
+        Mandate base = longOnlyCapped(n);
+        List<Integer> first = new ArrayList<>();
+        for (int i = 0; i < n / 3; i++) {
+            first.add(i);
+        }
+        List<Integer> last = new ArrayList<>();
+        for (int i = n - n / 4; i < n; i++) {
+            last.add(i);
+        }
+        double[] c = new double[n];
+        for (int i = n / 3; i < n - n / 4; i++) {
+            c[i] = 0.5 + (i % 3) * 0.25;
+        }
+        return new Mandate(1.0, base.lower(), base.upper(), Map.of(),
+                List.of(new Group("First", first, 0.20, 0.45), new Group("Last", last, Double.NEGATIVE_INFINITY, 0.25)),
+                List.of(new LinearConstraint("middle_tilt", c, Relation.AT_MOST, 0.30)));
     }
 
     /** Fully invested with every asset in {@code [lo, hi]}. */

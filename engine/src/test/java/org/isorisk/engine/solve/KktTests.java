@@ -88,4 +88,41 @@ class KktTests {
                 false);
         assertFalse(c.passes());
     }
+
+    @Test
+    void aLinearTermInTheObjectiveEntersStationarity() {
+        // min w'Σw − 2q'w subject to the budget and a target, solved independently from its full KKT system
+        // [2Σ −A'; A 0][w; s] = [2q; b] by Commons Math's LU decomposition: the certificate given q passes, the same
+        // numbers certified as if there were no linear term do not.
+        int n = u.size();
+        double[] q = new double[n];
+        for (int i = 0; i < n; i++) {
+            q[i] = 0.01 * (i % 3) - 0.004;
+        }
+        double[][] sigma = u.covariance();
+        double[][] k = new double[n + 2][n + 2];
+        double[] rhs = new double[n + 2];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                k[i][j] = 2 * sigma[i][j];
+            }
+            for (int r = 0; r < 2; r++) {
+                k[i][n + r] = -rows.get(r).coefficient(i);
+                k[n + r][i] = rows.get(r).coefficient(i);
+            }
+            rhs[i] = 2 * q[i];
+        }
+        rhs[n] = 1.0;
+        rhs[n + 1] = 0.05;
+        double[] z = new org.apache.commons.math3.linear.LUDecomposition(
+                new org.apache.commons.math3.linear.Array2DRowRealMatrix(k)).getSolver()
+                .solve(new org.apache.commons.math3.linear.ArrayRealVector(rhs)).toArray();
+        double[] w = java.util.Arrays.copyOf(z, n);
+        double[] p = {z[n], z[n + 1]};
+        double[] sw = Kkt.multiply(sigma, w);
+        Certificate with = Kkt.certifyProduct(sw, q, w, rows, null, p, null, null, null, null, 1, 1e-10, true);
+        assertTrue(with.passes() && with.stationarity() <= Tolerances.CLOSED_FORM, with.toString());
+        Certificate without = Kkt.certifyProduct(sw, w, rows, p, null, null, null, null, 1, 1e-10, true);
+        assertFalse(without.passes(), without.toString());
+    }
 }

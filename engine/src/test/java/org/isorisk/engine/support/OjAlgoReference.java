@@ -7,8 +7,9 @@ import org.ojalgo.optimisation.Optimisation;
 import org.ojalgo.optimisation.convex.ConvexSolver;
 
 /**
- * An independent solution of {@code min w'Σw} subject to the budget, an optional return target and per-asset
- * bounds by ojAlgo's active-set convex QP (general-purpose library). Per the project's library notes only
+ * An independent solution of {@code min w'Σw − 2q'w} (q = 0 unless given) subject to the budget, an optional
+ * return target, per-asset bounds, and the mandate's group limits and general rows by ojAlgo's active-set convex QP
+ * (general-purpose library). Per the project's library notes only
  * {@code isOptimal()} results are trusted, the active-set algorithm is forced (ojAlgo switches to ADMM above
  * about 300 variables otherwise), and only weights are compared: ojAlgo's duals are scaled and reordered.
  */
@@ -23,6 +24,15 @@ public final class OjAlgoReference {
      * @return the weights, or null when ojAlgo does not report an optimal solution
      */
     public static double[] weights(AssetUniverse u, Mandate m, double target) {
+        return weights(u, m, target, null);
+    }
+
+    /**
+     * Weights of the portfolio minimising {@code w'Σw − 2q'w}.
+     *
+     * @param linear q, or null for none
+     */
+    public static double[] weights(AssetUniverse u, Mandate m, double target, double[] linear) {
         int n = u.size();
         double[][] q = u.covariance();
         for (double[] row : q) {
@@ -56,9 +66,32 @@ public final class OjAlgoReference {
             }
             rows += (Double.isFinite(m.upper(i)) ? 1 : 0) + (Double.isFinite(m.lower(i)) ? 1 : 0);
         }
+        // groups and general rows; fixed weights are read from equal bounds only, as before
+        java.util.List<org.isorisk.engine.model.LinearConstraint> general = new java.util.ArrayList<>();
+        for (org.isorisk.engine.model.LinearConstraint c : m.rows(u.assets())) {
+            if (!c.name().equals("budget") && !c.name().startsWith("fixed:")) {
+                general.add(c);
+            }
+        }
+        for (org.isorisk.engine.model.LinearConstraint c : general) {
+            rows += c.relation() == org.isorisk.engine.model.Relation.EQUAL ? 2 : 1;
+        }
         double[][] ai = new double[rows][n];
         double[] bi = new double[rows];
         int r = 0;
+        for (org.isorisk.engine.model.LinearConstraint c : general) {
+            double sign = c.relation() == org.isorisk.engine.model.Relation.AT_LEAST ? -1 : 1;
+            for (int j = 0; j < n; j++) {
+                ai[r][j] = sign * c.coefficient(j);
+            }
+            bi[r++] = sign * c.limit();
+            if (c.relation() == org.isorisk.engine.model.Relation.EQUAL) {
+                for (int j = 0; j < n; j++) {
+                    ai[r][j] = -c.coefficient(j);
+                }
+                bi[r++] = -c.limit();
+            }
+        }
         for (int i = 0; i < n; i++) {
             if (m.lower(i) == m.upper(i)) {
                 continue;
@@ -73,7 +106,7 @@ public final class OjAlgoReference {
             }
         }
         ConvexSolver.Builder b = ConvexSolver.newBuilder()
-                .objective(R064Store.FACTORY.rows(q), R064Store.FACTORY.make(n, 1))
+                .objective(R064Store.FACTORY.rows(q), linearTerm(n, linear))
                 .equalities(R064Store.FACTORY.rows(ae), R064Store.FACTORY.column(be))
                 .inequalities(R064Store.FACTORY.rows(ai), R064Store.FACTORY.column(bi));
         Optimisation.Options opt = new Optimisation.Options();
@@ -87,5 +120,16 @@ public final class OjAlgoReference {
             w[i] = res.doubleValue(i);
         }
         return w;
+    }
+
+    /** ojAlgo's c in ½x'Qx − c'x: 2q. */
+    private static R064Store linearTerm(int n, double[] linear) {
+        R064Store c = R064Store.FACTORY.make(n, 1);
+        if (linear != null) {
+            for (int i = 0; i < n; i++) {
+                c.set(i, 0, 2 * linear[i]);
+            }
+        }
+        return c;
     }
 }
