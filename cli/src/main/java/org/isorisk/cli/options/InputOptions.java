@@ -48,6 +48,16 @@ public final class InputOptions {
                     + "'# as_of:' line, if any).")
     String asOf;
 
+    /** The expected-returns file, if given. */
+    public java.util.Optional<Path> expectedReturns() {
+        return java.util.Optional.ofNullable(expectedReturns);
+    }
+
+    /** The volatilities file, if given. */
+    public java.util.Optional<Path> volatilities() {
+        return java.util.Optional.ofNullable(volatilities);
+    }
+
     /** The covariance file, if given. */
     public java.util.Optional<Path> covariance() {
         return java.util.Optional.ofNullable(covariance);
