@@ -129,8 +129,15 @@ public final class Allocator {
             throw InputException.of("the critical line method here solves minimum-variance and target-return "
                     + "problems, not the tangency portfolio").fix("drop --method critical-line for --risk-free").build();
         }
-        MandateSweep sweep = MandateSweep.of(r.universe(), r.mandate(), r.settings(),
-                prepared == null ? null : prepared.fresh());
+        MandateSweep sweep = null;
+        if (prepared != null) {
+            MandateSweep kept = prepared.sharedSweep(r.mandate(), r.settings(),
+                    () -> MandateSweep.of(r.universe(), r.mandate(), r.settings(), prepared.fresh()));
+            sweep = kept == null ? null : kept.forCall(prepared.fresh());
+        }
+        if (sweep == null) {
+            sweep = MandateSweep.of(r.universe(), r.mandate(), r.settings(), prepared == null ? null : prepared.fresh());
+        }
         if (r.objective() instanceof Objective.TargetReturn t) {
             return sweep.target(t.target());
         }

@@ -67,6 +67,47 @@ class PreparedSolveTests {
     }
 
     @Test
+    void aMandateSolvedAgainReadsItsKeptWalksAndGivesTheSameBitsAtEveryTarget() {
+        // Mirror-image assets (the same return, variance and covariances) make corners where two events happen at
+        // one λ, merged into one corner: a kept whole walk must give the stopped walk's corners, not the merged
+        // ones further down. Targets at and around every corner's return, on both branches, and out of reach.
+        int n = 6;
+        double[] mu = {0.07, 0.07, 0.05, 0.04, 0.03, 0.02};
+        double[] vol = {0.20, 0.20, 0.15, 0.10, 0.07, 0.04};
+        double[][] sigma = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                double rho = i == j ? 1 : (i < 2 && j < 2) ? 0.5 : 0.2;
+                sigma[i][j] = rho * vol[i] * vol[j];
+            }
+        }
+        List<AssetUniverse> universes = List.of(new AssetUniverse(List.of("A", "B", "C", "D", "E", "F"), mu, sigma),
+                FactorModels.signedUniverse(40, 9), FactorModels.universe(40, 4));
+        for (AssetUniverse u : universes) {
+            int k = u.size();
+            Mandate m = FactorModels.boxed(k, 0.0, Math.max(0.3, 2.0 / k));
+            Factored once = Allocator.prepare(u, SolverSettings.defaults().withThreads(1));
+            List<Double> targets = new ArrayList<>();
+            for (var c : Allocator.mandateFrontier(u, m, new double[0], null).corners()) {
+                double r = c.expectedReturn();
+                targets.addAll(List.of(r, Math.nextUp(r), Math.nextDown(r), r + 1e-7, r - 1e-7));
+            }
+            ReturnRange range = Allocator.returnRange(u, m);
+            targets.addAll(List.of(range.max() + 1e-3, range.min() - 1e-3, range.max(), range.min()));
+            java.util.Collections.shuffle(targets, new java.util.Random(5));
+            for (double t : targets) {
+                AllocationRequest r = new AllocationRequest(u, m, Objective.targetReturn(t), Method.AUTO,
+                        SolverSettings.defaults().withThreads(1));
+                assertSame(outcome(() -> Allocator.solve(r)), outcome(() -> Allocator.solveWith(once, r)),
+                        "n=" + k + " target " + t);
+            }
+            AllocationRequest minVar = new AllocationRequest(u, m, Objective.minimumVariance(), Method.AUTO, null);
+            assertSame(outcome(() -> Allocator.solve(minVar)), outcome(() -> Allocator.solveWith(once, minVar)),
+                    "minimum variance");
+        }
+    }
+
+    @Test
     void solvesInAnyOrderDoNotLeaveTracesInTheSharedFactor() {
         // The factor remembers solves Σ⁻¹a; a solve with a fixed weight (an extra gradient) after others must
         // still solve its gradients together, as a fresh factor does.
