@@ -106,6 +106,8 @@ public final class BookOnSpark {
         final BookSpec spec;
         final List<String> header;
         final int headerRow;
+        /** The spec's paths qualified on the driver (executors run in other folders, maybe on other machines). */
+        final Map<String, String> locations;
         private transient Configuration conf;
 
         Plan(BookSpec spec, List<String> header, int headerRow, Configuration conf) {
@@ -113,10 +115,18 @@ public final class BookOnSpark {
             this.header = List.copyOf(header);
             this.headerRow = headerRow;
             this.conf = conf;
+            Map<String, String> at = new java.util.HashMap<>();
+            for (String p : new String[] {spec.book(), spec.expectedReturns(), spec.covariance(), spec.volatilities(),
+                    spec.correlation(), spec.assumptionSets(), spec.policy(), spec.scenarios()}) {
+                if (p != null) {
+                    at.put(p, HadoopFile.qualified(p, conf).location());
+                }
+            }
+            this.locations = Map.copyOf(at);
         }
 
         InputFile file(String path) {
-            return new HadoopFile(path, conf);
+            return new HadoopFile(path, locations.getOrDefault(path, path), conf);
         }
 
         /** The key of the job kept per JVM: the spec and the header (the same run). */
