@@ -683,7 +683,8 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
             default -> throw w.error(columns.objective, "the rebalance job knows the objectives target, same-risk and "
                     + "nearest").value(kind).fix("write target, same-risk or nearest").build();
         }
-        RebalanceResult r = Rebalancer.rebalance(new RebalanceRequest(u, mandate, today, limits, objective, settings));
+        RebalanceResult r = Rebalancer.rebalance(new RebalanceRequest(u, mandate, today, limits, objective, settings),
+                w.set.prepared());
         Solution s = r.proposal();
         solutionValues(w, s);
         w.v[BINDING] = binding(r.binding());

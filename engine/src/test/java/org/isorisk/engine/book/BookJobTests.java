@@ -166,6 +166,8 @@ class BookJobTests {
             assertBits(expected.cost(), out, results, "cost");
             assertBits(expected.proposedNetReturn(), out, results, "net_return");
             assertBits(expected.trackingError(), out, results, "tracking_error");
+            assertBits(expected.proposal().certificate().conditionNumber(), out, results, "condition_number");
+            assertBits(expected.proposal().certificate().stationarity(), out, results, "stationarity");
             double[] w = new double[u.assets().size()];
             for (int i = 0; i < w.length; i++) {
                 w[i] = (Double) ran.row(k).weights().get(i)[2];
