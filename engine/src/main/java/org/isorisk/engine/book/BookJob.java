@@ -264,8 +264,10 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
             }
             InputException.Builder b = w.error(columns.assumptions, "no assumption set named '" + w.setName + "'")
                     .value(w.setName);
-            throw Names.hint(b, w.setName, sets.names(), sets.names().isEmpty()
+            String near = BookColumns.nearest(w.setName, sets.names());
+            throw b.fix(sets.names().isEmpty()
                     ? "give --assumption-sets FILE naming it, or leave the cell blank for the run's own files"
+                    : near != null ? "did you mean '" + near + "'? The sets are: " + String.join(", ", sets.names())
                     : "use one of: " + String.join(", ", sets.names())).build();
         }
         w.set = sets.get(w.setName);
