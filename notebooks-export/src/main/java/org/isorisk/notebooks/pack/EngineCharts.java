@@ -7,24 +7,24 @@ import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
-import org.isorisk.engine.chart.AssetColours;
-import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartFormat;
-import org.isorisk.engine.chart.ChartSettings;
-import org.isorisk.engine.chart.Charts;
-import org.isorisk.engine.chart.Figure;
-import org.isorisk.engine.chart.FrontierChartData;
-import org.isorisk.engine.chart.PortfolioPoint;
-import org.isorisk.engine.chart.RiskShares;
-import org.isorisk.engine.chart.StressCurve;
 import org.isorisk.engine.stress.ScenarioPoint;
 import org.isorisk.engine.stress.ScenarioResult;
 import org.isorisk.engine.stress.StressResult;
 import org.isorisk.engine.stress.TargetPoint;
 import org.isorisk.notebooks.PackContent;
+import org.isorisk.notebooks.chart.AssetColours;
+import org.isorisk.notebooks.chart.ChartContext;
+import org.isorisk.notebooks.chart.ChartFormat;
+import org.isorisk.notebooks.chart.ChartSettings;
+import org.isorisk.notebooks.chart.Charts;
+import org.isorisk.notebooks.chart.Figure;
+import org.isorisk.notebooks.chart.FrontierChartData;
+import org.isorisk.notebooks.chart.PortfolioPoint;
+import org.isorisk.notebooks.chart.RiskShares;
+import org.isorisk.notebooks.chart.StressCurve;
 
 /**
- * Draws the pack's charts with {@code engine.chart}: the frontier (with the proposal, the current holdings and
+ * Draws the pack's charts with {@code notebooks.chart}: the frontier (with the proposal, the current holdings and
  * the tangency portfolio), the weights along the frontier, the marginal risk of the return target along the
  * frontier, and the risk contributions of the current and proposed portfolios. Each chart is written as PNG and
  * SVG, and as PDF when the pack file asks for it; every number drawn comes from {@link PackResults}.
