@@ -5,6 +5,7 @@ import java.time.OffsetDateTime;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import org.isorisk.notebooks.report.Table;
 
 /**
  * Everything the committee notebook says, as plain values: text as given (the exporter escapes it), numbers

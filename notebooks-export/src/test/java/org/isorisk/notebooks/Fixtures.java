@@ -14,6 +14,7 @@ import java.util.List;
 import java.util.Optional;
 import javax.imageio.ImageIO;
 import org.isorisk.engine.explain.Caution;
+import org.isorisk.notebooks.report.Table;
 
 /** Pack contents for the notebook tests: invented numbers, with ordinary or hostile asset names. */
 public final class Fixtures {

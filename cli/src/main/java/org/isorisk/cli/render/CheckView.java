@@ -3,10 +3,10 @@ package org.isorisk.cli.render;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.risk.AssumptionSummary;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The result of {@code isorisk check}: the inputs are valid (else the command failed before), with what an

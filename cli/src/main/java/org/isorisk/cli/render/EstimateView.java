@@ -8,9 +8,9 @@ import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.Issue;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.EstimateReport;
 import org.isorisk.engine.io.ResultJson;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The result of {@code isorisk estimate}: the data-quality report of the estimate and the files written.

@@ -6,7 +6,6 @@ import java.util.ArrayList;
 import java.util.List;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Corner;
@@ -16,6 +15,7 @@ import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.RejectedTarget;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * A frontier for people, spreadsheets and scripts: the corner portfolios (when the method computes them), the

@@ -3,7 +3,6 @@ package org.isorisk.cli.render;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.RebalanceStressJson;
 import org.isorisk.engine.io.ResultJson;
@@ -11,6 +10,7 @@ import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.rebalance.Breach;
 import org.isorisk.engine.rebalance.RebalanceResult;
 import org.isorisk.engine.rebalance.Trade;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * A rebalancing proposal: breaches of the policy today first, then the trade list, totals, risk and the shadow

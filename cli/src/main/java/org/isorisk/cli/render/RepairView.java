@@ -7,9 +7,9 @@ import java.util.List;
 import org.isorisk.engine.estimate.RepairResult;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.RepairReport;
 import org.isorisk.engine.io.ResultJson;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The result of {@code isorisk check --repair}: what the repair changed, and the files written (none when the

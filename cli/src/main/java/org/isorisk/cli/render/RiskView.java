@@ -4,12 +4,12 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import java.util.OptionalDouble;
 import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.risk.Contribution;
 import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.risk.TrackingError;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The risk decomposition of a portfolio, optionally against a benchmark.

@@ -5,7 +5,6 @@ import java.util.List;
 import java.util.Map;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Certificate;
@@ -15,6 +14,7 @@ import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.risk.Contribution;
 import org.isorisk.engine.risk.RiskDecomposition;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * A solved portfolio for people, spreadsheets and scripts.

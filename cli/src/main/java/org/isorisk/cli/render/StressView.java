@@ -3,7 +3,6 @@ package org.isorisk.cli.render;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.RebalanceStressJson;
 import org.isorisk.engine.io.ResultJson;
@@ -12,6 +11,7 @@ import org.isorisk.engine.stress.ScenarioPoint;
 import org.isorisk.engine.stress.ScenarioResult;
 import org.isorisk.engine.stress.StressResult;
 import org.isorisk.engine.stress.TargetPoint;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * A stress run: the target sweep under the base assumptions, then one block per scenario.

@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
-import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -84,21 +83,6 @@ class OutputTests {
         assertEquals("1", Files.readString(out.resolve("a.txt")), "the earlier output is untouched");
         assertFalse(Files.exists(out.resolve("c.txt")));
         assertEquals(List.of("pack"), names(), "no temporary or old folder is left beside it");
-    }
-
-    @Test
-    void writtenCsvReadsBackCellForCell() throws IOException {
-        StringWriter s = new StringWriter();
-        new CsvWriter(s).comment("caution", "line one\nline two").row("asset", "weight", "note")
-                .row("Bonds, long", 0.1 + 0.2, "say \"hi\"").row("#hash", 1e-9, null);
-        CsvTable t = Csv.parse("o.csv", "weights", s.toString());
-        assertEquals("line one line two", t.meta("caution").orElseThrow().value());
-        assertEquals("Bonds, long", t.rows().get(0).cell(0));
-        assertEquals(0.1 + 0.2, t.number(t.rows().get(0), 1, null), "full precision survives");
-        assertEquals("say \"hi\"", t.rows().get(0).cell(2));
-        assertEquals("#hash", t.rows().get(1).cell(0));
-        assertEquals(1e-9, t.number(t.rows().get(1), 1, null));
-        assertEquals("", t.rows().get(1).cell(2));
     }
 
     @Test

@@ -3,12 +3,12 @@ package org.isorisk.notebooks.folder;
 import java.io.OutputStreamWriter;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
-import org.isorisk.notebooks.Csv;
 import org.isorisk.notebooks.NotebookWriter;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.PackLayout;
-import org.isorisk.notebooks.Table;
 import org.isorisk.notebooks.TableSchema;
+import org.isorisk.notebooks.report.CsvWriter;
+import org.isorisk.notebooks.report.Table;
 
 /** Adds the files of a {@link PackContent} to a {@link PackFolder}: the notebook, every table, every chart. */
 public final class PackFiles {
@@ -26,7 +26,7 @@ public final class PackFiles {
         for (Table t : content.tables()) {
             folder.add(PackLayout.table(t.name()), out -> {
                 Writer w = new OutputStreamWriter(out, StandardCharsets.UTF_8);
-                Csv.write(t, w);
+                CsvWriter.write(t, w);
                 w.flush();
             });
         }

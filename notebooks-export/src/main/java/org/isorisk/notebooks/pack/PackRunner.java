@@ -47,7 +47,7 @@ import org.isorisk.engine.stress.StressProgress;
 import org.isorisk.engine.stress.StressRequest;
 import org.isorisk.engine.stress.StressResult;
 import org.isorisk.notebooks.PackContent;
-import org.isorisk.notebooks.Table;
+import org.isorisk.notebooks.report.Table;
 
 /**
  * Runs the whole analysis of a committee pack through the engine and lays the results out as

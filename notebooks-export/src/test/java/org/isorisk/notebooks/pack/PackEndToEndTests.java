@@ -17,11 +17,11 @@ import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.model.SolverSettings;
 import org.isorisk.notebooks.ExternalTools;
 import org.isorisk.notebooks.PackContent;
-import org.isorisk.notebooks.Table;
-import org.isorisk.notebooks.Text;
 import org.isorisk.notebooks.PackLayout;
+import org.isorisk.notebooks.Text;
 import org.isorisk.notebooks.folder.PackFiles;
 import org.isorisk.notebooks.folder.PackFolder;
+import org.isorisk.notebooks.report.Table;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 

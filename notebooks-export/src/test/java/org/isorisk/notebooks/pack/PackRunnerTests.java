@@ -26,7 +26,7 @@ import org.isorisk.engine.rebalance.Trade;
 import org.isorisk.engine.rebalance.TradingLimits;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.notebooks.PackContent;
-import org.isorisk.notebooks.Table;
+import org.isorisk.notebooks.report.Table;
 import org.junit.jupiter.api.Test;
 
 class PackRunnerTests {

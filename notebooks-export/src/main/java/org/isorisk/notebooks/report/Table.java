@@ -1,4 +1,4 @@
-package org.isorisk.notebooks;
+package org.isorisk.notebooks.report;
 
 import java.util.ArrayList;
 import java.util.List;

@@ -1,4 +1,4 @@
-package org.isorisk.engine.io;
+package org.isorisk.cli.files;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
@@ -10,6 +10,11 @@ import java.util.ArrayList;
 import java.util.List;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.RepairResult;
+import org.isorisk.engine.io.AtomicWrite;
+import org.isorisk.engine.io.EstimateReport;
+import org.isorisk.engine.io.RepairReport;
+import org.isorisk.engine.io.ResultJson;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The files {@code estimate} and the repair write, in the layouts {@code solve} reads (a per-asset column

@@ -1,4 +1,4 @@
-package org.isorisk.notebooks;
+package org.isorisk.notebooks.report;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
@@ -10,10 +10,16 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import org.isorisk.engine.io.Csv;
+import org.isorisk.engine.io.CsvTable;
+import org.isorisk.notebooks.ExternalTools;
+import org.isorisk.notebooks.Fixtures;
+import org.isorisk.notebooks.PackLayout;
+import org.isorisk.notebooks.TableSchema;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
-class CsvTests {
+class CsvWriterTests {
 
     private static Table table(List<String> names, double... values) {
         Table.Builder b = Table.builder("t", "T").column(Table.Column.text("asset", "Asset"))
@@ -29,7 +35,7 @@ class CsvTests {
     /** The CSV text after the two comment lines (checked separately). */
     private static String csv(Table t) {
         StringWriter w = new StringWriter();
-        Csv.write(t, w);
+        CsvWriter.write(t, w);
         String s = w.toString();
         assertEquals(HEAD, s.substring(0, HEAD.length()), "every table carries the caution");
         return s.substring(HEAD.length());
@@ -38,22 +44,22 @@ class CsvTests {
     @Test
     void textCellsThatASpreadsheetWouldRunAsAFormulaGetOneLeadingApostrophe() {
         // The six triggers are OWASP's list ("CSV Injection"): = + - @ tab carriage-return.
-        assertEquals("'=SUM(A1:A2)", Csv.neutralise("=SUM(A1:A2)"));
-        assertEquals("'+1", Csv.neutralise("+1"));
-        assertEquals("'-1+1", Csv.neutralise("-1+1"));
-        assertEquals("'@cmd", Csv.neutralise("@cmd"));
-        assertEquals("'\tx", Csv.neutralise("\tx"));
-        assertEquals("'\rx", Csv.neutralise("\rx"));
-        assertEquals("Cash", Csv.neutralise("Cash"));
-        assertEquals("Cash=1", Csv.neutralise("Cash=1"), "only the first character matters");
+        assertEquals("'=SUM(A1:A2)", CsvWriter.neutralise("=SUM(A1:A2)"));
+        assertEquals("'+1", CsvWriter.neutralise("+1"));
+        assertEquals("'-1+1", CsvWriter.neutralise("-1+1"));
+        assertEquals("'@cmd", CsvWriter.neutralise("@cmd"));
+        assertEquals("'\tx", CsvWriter.neutralise("\tx"));
+        assertEquals("'\rx", CsvWriter.neutralise("\rx"));
+        assertEquals("Cash", CsvWriter.neutralise("Cash"));
+        assertEquals("Cash=1", CsvWriter.neutralise("Cash=1"), "only the first character matters");
     }
 
     @Test
     void apostrophesBeforeATriggerAreGuardedTooSoTheRuleIsReversible() {
-        assertEquals("''=x", Csv.neutralise("'=x"));
-        assertEquals("'plain", Csv.neutralise("'plain"), "an apostrophe before ordinary text is left alone");
+        assertEquals("''=x", CsvWriter.neutralise("'=x"));
+        assertEquals("'plain", CsvWriter.neutralise("'plain"), "an apostrophe before ordinary text is left alone");
         for (String s : List.of("=x", "'=x", "''@y", "'plain", "'", "", "-", "Cash", "\r\n")) {
-            assertEquals(s, Csv.restore(Csv.neutralise(s)), s);
+            assertEquals(s, CsvWriter.restore(CsvWriter.neutralise(s)), s);
         }
     }
 
@@ -90,7 +96,7 @@ class CsvTests {
         Table t = table(names, -0.05, 0.0, 1e-17, 0.1 + 0.2, Double.NaN, 1.0, 2.0);
         Files.createDirectories(dir.resolve(PackLayout.TABLES));
         try (var w = Files.newBufferedWriter(dir.resolve(PackLayout.table("t")), StandardCharsets.UTF_8)) {
-            Csv.write(t, w);
+            CsvWriter.write(t, w);
         }
         try (var out = Files.newOutputStream(dir.resolve(PackLayout.SCHEMA))) {
             TableSchema.write(List.of(t), out);
@@ -112,5 +118,20 @@ class CsvTests {
                 assertEquals(expected[i], back.get(i).get(1).asDouble(), 0.0, "exact round trip");
             }
         }
+    }
+
+    @Test
+    void writtenCsvReadsBackCellForCell() throws IOException {
+        StringWriter s = new StringWriter();
+        new CsvWriter(s).comment("caution", "line one\nline two").row("asset", "weight", "note")
+                .row("Bonds, long", 0.1 + 0.2, "say \"hi\"").row("#hash", 1e-9, null);
+        CsvTable t = Csv.parse("o.csv", "weights", s.toString());
+        assertEquals("line one line two", t.meta("caution").orElseThrow().value());
+        assertEquals("Bonds, long", t.rows().get(0).cell(0));
+        assertEquals(0.1 + 0.2, t.number(t.rows().get(0), 1, null), "full precision survives");
+        assertEquals("say \"hi\"", t.rows().get(0).cell(2));
+        assertEquals("#hash", t.rows().get(1).cell(0));
+        assertEquals(1e-9, t.number(t.rows().get(1), 1, null));
+        assertEquals("", t.rows().get(1).cell(2));
     }
 }
