@@ -13,6 +13,8 @@ import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.IsoriskCommand;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.PolicyOption;
+import org.isorisk.cli.usecase.PackAnalysis;
+import org.isorisk.cli.usecase.PackSpecReader;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.io.LoadedUniverse;
@@ -33,10 +35,10 @@ import org.isorisk.notebooks.chart.ChartSettings;
 import org.isorisk.notebooks.folder.PackFiles;
 import org.isorisk.notebooks.folder.PackFolder;
 import org.isorisk.notebooks.pack.ChartMaker;
-import org.isorisk.notebooks.pack.EngineCharts;
-import org.isorisk.notebooks.pack.PackRunner;
+import org.isorisk.notebooks.pack.PackCharts;
+import org.isorisk.notebooks.pack.PackComposer;
+import org.isorisk.notebooks.pack.PackResults;
 import org.isorisk.notebooks.pack.PackSpec;
-import org.isorisk.notebooks.pack.PackSpecReader;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -44,7 +46,7 @@ import picocli.CommandLine.Option;
 /**
  * {@code isorisk pack}: the committee pack of a fund, from its input tables and a pack file, into one folder
  * (notebook, charts, CSV tables, copies of the inputs, manifest), written atomically. Reading and printing only:
- * the analysis is {@link PackRunner}'s, the folder {@link PackFolder}'s.
+ * the analyses are {@link PackAnalysis}'s, the layout {@link PackComposer}'s, the folder {@link PackFolder}'s.
  */
 @Command(name = "pack", mixinStandardHelpOptions = true, sortOptions = false,
         header = "Write a fund's investment committee pack (notebook, charts, tables, manifest) into one folder.",
@@ -122,7 +124,7 @@ public final class PackCommand extends BaseCommand {
         List<String> warnings = new ArrayList<>(u.warnings());
         Mandate mandate = loaded.mandate();
         Optional<Policy> pol = loaded.policy();
-        // the policy's trading limits shape the trade list (PackRunner: the full move when they restrict nothing)
+        // the policy's trading limits shape the trade list (PackAnalysis: the full move when they restrict nothing)
         TradingLimits trading = pol.map(TradingLimits::of).orElse(null);
         Optional<double[]> weights = Optional.empty();
         List<SourceFile> sources = new ArrayList<>(u.provenance().inputs());
@@ -175,10 +177,12 @@ public final class PackCommand extends BaseCommand {
                 prov = prov.withInput(s); // the holdings too, so the charts' input hash covers every input
             }
         }
-        ChartMaker charts = new EngineCharts(ChartContext.of(prov, spec.fund()), ChartSettings.defaults());
-        PackRunner.Outcome o = PackRunner.run(new PackRunner.Request(u.universe(), mandate, spec, weights,
+        ChartMaker charts = new PackCharts(ChartContext.of(prov, spec.fund()), ChartSettings.defaults());
+        PackResults results = PackAnalysis.run(new PackAnalysis.Request(u.universe(), mandate, spec, weights,
+                scenarios, trading));
+        PackContent content = PackComposer.compose(results, new PackComposer.Request(
                 u.provenance().scenario() == null ? "" : "Inputs: " + u.provenance().scenario() + ".", version, now,
-                parameters, recorded, notes, scenarios, charts, trading));
+                parameters, recorded, notes, charts));
 
         com.fasterxml.jackson.databind.node.ObjectNode params = spec.toJson();
         params.put("policy", policy == null ? null : policy.getFileName().toString());
@@ -186,7 +190,7 @@ public final class PackCommand extends BaseCommand {
         params.put("units", units.label());
         params.put("force", force);
         folder.parameters(params);
-        PackFiles.addTo(folder, o.content());
+        PackFiles.addTo(folder, content);
         java.util.Set<String> copied = new java.util.HashSet<>();
         for (SourceFile s : sources) {
             copy(folder, s.role(), Path.of(s.path()), copied);
@@ -194,10 +198,10 @@ public final class PackCommand extends BaseCommand {
         for (PackFolder.Input in : more) {
             copy(folder, in.role(), in.path(), copied);
         }
-        String summary = summary(o.content(), out, notes);
+        String summary = summary(content, out, notes);
         folder.add("summary.txt", os -> os.write(summary.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
         PackFolder.Result r = folder.commit(out, force);
-        return new Made(r.folder(), o.content(), r.files().size(), summary, warnings);
+        return new Made(r.folder(), content, r.files().size(), summary, warnings);
     }
 
     /** A copy of an input under {@code inputs/}, by its file name (prefixed with its role if two names clash). */

@@ -29,7 +29,7 @@ import org.isorisk.notebooks.chart.StressCurve;
  * frontier, and the risk contributions of the current and proposed portfolios. Each chart is written as PNG and
  * SVG, and as PDF when the pack file asks for it; every number drawn comes from {@link PackResults}.
  */
-public final class EngineCharts implements ChartMaker {
+public final class PackCharts implements ChartMaker {
     private final ChartContext context;
     private final ChartSettings settings;
 
@@ -37,7 +37,7 @@ public final class EngineCharts implements ChartMaker {
      * @param context  the as-of date, input hash and fund name every chart's footnote carries
      * @param settings sizes and limits; {@link ChartSettings#defaults()} for the pack
      */
-    public EngineCharts(ChartContext context, ChartSettings settings) {
+    public PackCharts(ChartContext context, ChartSettings settings) {
         this.context = Objects.requireNonNull(context, "context");
         this.settings = Objects.requireNonNull(settings, "settings");
     }

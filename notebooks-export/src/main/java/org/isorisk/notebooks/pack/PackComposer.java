@@ -15,220 +15,89 @@ import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.explain.MandateWords;
-import org.isorisk.engine.frontier.Frontiers;
-import org.isorisk.engine.frontier.Grid;
-import org.isorisk.engine.linalg.Spectrum;
-import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Certificate;
-import org.isorisk.engine.model.Frontier;
-import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Multiplier;
-import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.rebalance.Breach;
-import org.isorisk.engine.rebalance.Holdings;
-import org.isorisk.engine.rebalance.RebalanceObjective;
-import org.isorisk.engine.rebalance.RebalanceRequest;
 import org.isorisk.engine.rebalance.RebalanceResult;
-import org.isorisk.engine.rebalance.Rebalancer;
 import org.isorisk.engine.rebalance.Trade;
 import org.isorisk.engine.rebalance.TradingLimits;
 import org.isorisk.engine.risk.Correlations;
-import org.isorisk.engine.risk.RiskAnalysis;
 import org.isorisk.engine.risk.RiskDecomposition;
-import org.isorisk.engine.solve.Allocator;
-import org.isorisk.engine.stress.CorrelationRepair;
-import org.isorisk.engine.stress.Scenario;
 import org.isorisk.engine.stress.ScenarioPoint;
 import org.isorisk.engine.stress.ScenarioResult;
-import org.isorisk.engine.stress.Stress;
-import org.isorisk.engine.stress.StressProgress;
-import org.isorisk.engine.stress.StressRequest;
 import org.isorisk.engine.stress.StressResult;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.report.Table;
 
 /**
- * Runs the whole analysis of a committee pack through the engine and lays the results out as
- * {@link PackContent}: the minimum-variance portfolio, one portfolio per target, the tangency portfolio when a
- * risk-free rate is given, a sampled frontier, the risk decomposition of the proposal, the binding
- * constraints with their shadow prices in sentences, the trade list from current holdings (within the policy's
- * trading limits when it sets any, through {@link Rebalancer}), and the charts.
- * Every number comes from an engine call; this class only chooses what to ask and how to show it.
+ * Lays the results of a committee pack's analyses ({@link PackResults}) out as {@link PackContent}: the
+ * assumptions, the minimum-variance, target and tangency portfolios, the sampled frontier, the risk decomposition
+ * of the proposal, the binding constraints with their shadow prices in sentences, the trade list from current
+ * holdings (the rebalancer's move within the policy's trading limits when it sets any, else the full move), the
+ * stress table, the charts and the run record. It runs no analysis: every number comes from the results it is
+ * given; this class only chooses how to show them.
  */
-public final class PackRunner {
-    private PackRunner() {
+public final class PackComposer {
+    private PackComposer() {
     }
 
     /** Label of the current holdings in the pack's tables. */
-    static final String CURRENT = "Current holdings";
+    public static final String CURRENT = "Current holdings";
 
     /** Up to this many assets the correlation matrix's columns carry the names; beyond, numbers. */
     static final int NAMED_CORRELATION_COLUMNS = 6;
 
+    /** Title of the trade table when it is the full move to the proposal. */
+    public static final String FULL_MOVE_TITLE = "Trades from the current holdings: the full move to the proposal";
+    /** Title of the trade table when it is the rebalancer's move within the trading limits. */
+    public static final String WITHIN_LIMITS_TITLE = "Trades from the current holdings within the policy's trading limits";
+
     /**
-     * One pack run.
+     * What the pack says besides the results: how the assumptions were made, the run record, the charts.
      *
-     * @param universe    the assets and their assumptions
-     * @param mandate     the mandate (from the policy file, or the budget alone)
-     * @param spec        the pack file
-     * @param holdings    current weights in universe order, when a holdings file was given
      * @param estimator   how the assumptions were made, in words; the pack file's {@code assumptions_note} wins
      * @param toolVersion isorisk's version
      * @param created     when the pack is made
      * @param parameters  the run's parameters as given on the command line
      * @param inputs      the input files with their SHA-256
      * @param notes       remarks from reading the inputs (warnings), for the run record
-     * @param scenarios   stress scenarios to run at the pack's targets (read from the pack file's scenario file)
      * @param charts      draws the charts
-     * @param trading     the policy's trading limits ({@link TradingLimits#of}); when they restrict trading and
-     *                    holdings are given, the trade list is the rebalancer's move within them; none when null
      */
-    public record Request(AssetUniverse universe, Mandate mandate, PackSpec spec, Optional<double[]> holdings,
-                          String estimator, String toolVersion, OffsetDateTime created,
+    public record Request(String estimator, String toolVersion, OffsetDateTime created,
                           List<PackContent.Parameter> parameters, List<PackContent.InputFile> inputs,
-                          List<String> notes, List<Scenario> scenarios, ChartMaker charts, TradingLimits trading) {
-
-        /** A run without trading limits: the trade list, when holdings are given, is the full move. */
-        public Request(AssetUniverse universe, Mandate mandate, PackSpec spec, Optional<double[]> holdings,
-                       String estimator, String toolVersion, OffsetDateTime created,
-                       List<PackContent.Parameter> parameters, List<PackContent.InputFile> inputs, List<String> notes,
-                       List<Scenario> scenarios, ChartMaker charts) {
-            this(universe, mandate, spec, holdings, estimator, toolVersion, created, parameters, inputs, notes,
-                    scenarios, charts, null);
-        }
+                          List<String> notes, ChartMaker charts) {
 
         public Request {
-            Objects.requireNonNull(universe, "universe");
-            Objects.requireNonNull(mandate, "mandate");
-            Objects.requireNonNull(spec, "spec");
-            holdings = holdings == null ? Optional.empty() : holdings.map(double[]::clone);
             estimator = estimator == null ? "" : estimator;
             Objects.requireNonNull(toolVersion, "toolVersion");
             Objects.requireNonNull(created, "created");
             parameters = List.copyOf(parameters);
             inputs = List.copyOf(inputs);
             notes = List.copyOf(notes);
-            scenarios = scenarios == null ? List.of() : List.copyOf(scenarios);
             Objects.requireNonNull(charts, "charts");
-            trading = trading == null ? TradingLimits.none(universe.size()) : trading;
-            if (trading.size() != universe.size()) {
-                throw new IllegalArgumentException("the trading limits must cover the universe's " + universe.size()
-                        + " assets");
-            }
         }
     }
-
-    /** What a run produced: the engine results and the laid-out content. */
-    public record Outcome(PackResults results, PackContent content) {
-    }
-
-    /** Title of the trade table when it is the full move to the proposal. */
-    static final String FULL_MOVE_TITLE = "Trades from the current holdings: the full move to the proposal";
-    /** Title of the trade table when it is the rebalancer's move within the trading limits. */
-    static final String WITHIN_LIMITS_TITLE = "Trades from the current holdings within the policy's trading limits";
 
     /**
-     * Runs the analysis.
-     *
-     * @throws NoSolutionException when a portfolio the pack needs has no solution (e.g. a target above what
-     *                             the mandate allows); the message names the target
+     * Lays out {@code results}: draws the charts the pack file asks for, then the tables and sentences. The run
+     * record's notes are the request's, then why there is no tangency portfolio, then the charts' and the stress
+     * run's.
      */
-    public static Outcome run(Request r) {
-        PackSpec spec = r.spec();
-        AssetUniverse u = r.universe();
-        AllocationRequest base = AllocationRequest.of(u, r.mandate(), Objective.minimumVariance());
-        Solution minimum = Allocator.solve(base);
-        List<Solution> targets = new ArrayList<>();
-        Solution proposal = null;
-        for (double t : spec.targets()) {
-            Solution s;
-            try {
-                s = Allocator.solve(base.withObjective(Objective.targetReturn(t)));
-            } catch (NoSolutionException e) {
-                throw new NoSolutionException(e.reason(), "target return " + Explain.percent(t) + " of the pack file: "
-                        + e.getMessage(), e.constraints());
-            }
-            targets.add(s);
-            if (t == spec.proposed()) {
-                proposal = s;
-            }
-        }
+    public static PackContent compose(PackResults results, Request r) {
         List<String> notes = new ArrayList<>(r.notes());
-        Optional<Solution> tangency = Optional.empty();
-        if (spec.riskFree().isPresent()) {
-            try {
-                tangency = Optional.of(Allocator.solve(base.withObjective(Objective.tangency(spec.riskFree().get()))));
-            } catch (NoSolutionException e) {
-                notes.add("No tangency portfolio: " + e.getMessage());
-            }
-        }
-        Frontier frontier = frontier(base, spec.frontierPoints());
-        RiskDecomposition risk = RiskAnalysis.decompose(u, proposal.weights());
-        Optional<RiskDecomposition> currentRisk = r.holdings().map(h -> RiskAnalysis.decompose(u, h));
-        // The stress chart draws each scenario's frontier: the scenarios run at the frontier's own targets.
-        Optional<StressResult> sweep = Optional.empty();
-        if (spec.charts().contains(PackSpec.ChartChoice.STRESS) && !r.scenarios().isEmpty()) {
-            double[] along = frontier.points().stream().mapToDouble(Solution::expectedReturn).sorted().distinct()
-                    .toArray();
-            sweep = Optional.of(Stress.run(new StressRequest(u, r.mandate(), along, r.scenarios(),
-                    CorrelationRepair.higham(u.assets()), base.settings()), StressProgress.NONE));
-        }
-        // The trade list: within the policy's trading limits when it sets any (the rebalancer, aiming at the
-        // proposal's target after costs), else the full move. A target out of reach within the limits is reported
-        // in the pack, not a failure of the pack.
-        Optional<RebalanceResult> rebalance = Optional.empty();
-        Optional<NoSolutionException> outOfReach = Optional.empty();
-        if (r.holdings().isPresent() && r.trading().restrictsTrading()) {
-            try {
-                rebalance = Optional.of(Rebalancer.rebalance(rebalanceRequest(r, base)));
-            } catch (NoSolutionException e) {
-                outOfReach = Optional.of(e);
-            }
-        }
-        PackResults results = new PackResults(spec, u, r.mandate(), minimum, targets, proposal, tangency, frontier,
-                risk, r.holdings(), currentRisk, sweep, rebalance);
+        results.noTangency().ifPresent(notes::add);
         List<PackContent.Chart> charts = r.charts().draw(results);
-        if (charts.isEmpty() && !spec.charts().isEmpty()) {
+        if (charts.isEmpty() && !results.spec().charts().isEmpty()) {
             notes.add("Charts were asked for but none was drawn.");
         }
-
         List<Table> stress = new ArrayList<>();
-        if (!r.scenarios().isEmpty()) {
-            double[] grid = spec.targets().stream().mapToDouble(Double::doubleValue).toArray();
-            StressResult sr = Stress.run(new StressRequest(u, r.mandate(), grid, r.scenarios(),
-                    CorrelationRepair.higham(u.assets()), base.settings()), StressProgress.NONE);
+        results.stress().ifPresent(sr -> {
             stress.add(stressTable(sr));
             notes.addAll(sr.notes());
-        }
-        return new Outcome(results, layout(r, results, charts, notes, stress, outOfReach));
-    }
-
-    /**
-     * The rebalance the pack's trade list comes from when the policy limits trading: today's holdings (with the
-     * pack file's fund size, for amounts), the policy's trading limits, and the proposal's target as the return
-     * to reach after costs.
-     */
-    static RebalanceRequest rebalanceRequest(Request r, AllocationRequest base) {
-        double size = r.spec().fundSize().orElse(Double.NaN);
-        Holdings h = Holdings.ofWeights(r.universe().assets(), r.holdings().orElseThrow(), size);
-        return new RebalanceRequest(r.universe(), r.mandate(), h, r.trading(),
-                new RebalanceObjective.TargetReturn(r.spec().proposed()), base.settings());
-    }
-
-    /**
-     * The efficient frontier with {@code points} portfolios from the minimum-variance end to the highest return
-     * the mandate allows, through the engine's front door for frontiers: exact (critical line method, with its
-     * corner portfolios) where only budget, bounds and fixed weights apply, sampled by the warm-started QP
-     * otherwise.
-     */
-    private static Frontier frontier(AllocationRequest base, int points) {
-        AssetUniverse u = base.universe();
-        Mandate m = base.mandate();
-        return Allocator.criticalLineApplies(m)
-                ? Frontiers.mandate(u, m, Grid.points(points), base.settings())
-                : Frontiers.sampled(u, m, Grid.points(points), base.settings());
+        });
+        return layout(r, results, charts, notes, stress);
     }
 
     // ------------------------------------------------------------------ layout
@@ -254,9 +123,9 @@ public final class PackRunner {
     }
 
     private static PackContent layout(Request r, PackResults res, List<PackContent.Chart> charts, List<String> notes,
-                                      List<Table> stress, Optional<NoSolutionException> outOfReach) {
-        PackSpec spec = r.spec();
-        AssetUniverse u = r.universe();
+                                      List<Table> stress) {
+        PackSpec spec = res.spec();
+        AssetUniverse u = res.universe();
         List<String> assets = u.assets();
         int n = u.size();
 
@@ -270,7 +139,7 @@ public final class PackRunner {
         for (int i = 0; i < n; i++) {
             at.row(assets.get(i), u.expectedReturn(i), Math.sqrt(u.covariance(i, i)));
         }
-        Correlations corr = Correlations.of(u);
+        Correlations corr = res.correlations();
         List<String> keys = columnKeys(assets);
         // Many assets: columns headed by number (the "No." column says which), so the matrix fits a page.
         boolean numbered = n > NAMED_CORRELATION_COLUMNS;
@@ -295,7 +164,7 @@ public final class PackRunner {
         String estimator = !spec.assumptionsNote().isBlank() ? spec.assumptionsNote()
                 : !r.estimator().isBlank() ? r.estimator() : "Expected returns and covariance as given in the input tables.";
         PackContent.Assumptions assumptions = new PackContent.Assumptions(at.build(), ct.build(), pair(corr.lowest()),
-                pair(corr.highest()), corr.average(), Spectrum.of(u.covariance()).conditionNumber(), estimator);
+                pair(corr.highest()), corr.average(), res.conditionNumber(), estimator);
 
         // portfolios, in order: minimum variance, targets, tangency
         List<Solution> sols = new ArrayList<>();
@@ -414,10 +283,10 @@ public final class PackRunner {
                     runNotes.add("Trades within the trading limits: the KKT certificate is above its tolerance ("
                             + certificateLine(rb.proposal().certificate()) + "); treat the trade list with caution.");
                 }
-            } else if (outOfReach.isEmpty()) {
+            } else if (res.outOfReach().isEmpty()) {
                 trades = Optional.of(trades(assets, h, w, spec));
             }
-            trading = Optional.of(trading(r, res, outOfReach));
+            trading = Optional.of(trading(res));
         }
 
         List<PackContent.Parameter> parameters = new ArrayList<>(r.parameters());
@@ -429,7 +298,7 @@ public final class PackRunner {
 
         PackContent.RunRecord run = new PackContent.RunRecord(r.toolVersion(), r.created(), parameters, r.inputs(),
                 new ArrayList<>(runNotes));
-        return new PackContent(heading, assumptions, MandateWords.describe(r.mandate(), assets), portfolios, frontier,
+        return new PackContent(heading, assumptions, MandateWords.describe(res.mandate(), assets), portfolios, frontier,
                 wt.build(), rt.build(), binding, cons.build(), charts, trades, stress, run, trading);
     }
 
@@ -485,16 +354,15 @@ public final class PackRunner {
      * How the trade list was made: which of the two it is, the limits in words, the full move beside the move
      * within the limits, today's breaches, the engine's shadow-price sentences, the conventions.
      */
-    private static PackContent.Trading trading(Request r, PackResults res, Optional<NoSolutionException> outOfReach) {
-        AssetUniverse u = r.universe();
-        TradingLimits lim = r.trading();
-        double[] h = res.holdings().orElseThrow();
+    private static PackContent.Trading trading(PackResults res) {
+        AssetUniverse u = res.universe();
+        TradingLimits lim = res.trading();
         Solution p = res.proposal();
-        double[] w = p.weights();
         RiskDecomposition now = res.currentRisk().orElseThrow();
-        double fullTurnover = TradingLimits.turnover(h, w);
-        double fullCost = lim.cost(h, w);
-        String target = Explain.percent(r.spec().proposed());
+        PackResults.FullMove full = res.fullMove().orElseThrow();
+        double fullTurnover = full.turnover();
+        double fullCost = full.cost();
+        String target = Explain.percent(res.spec().proposed());
         Optional<RebalanceResult> rb = res.rebalance();
 
         PackContent.Trading.Mode mode;
@@ -513,7 +381,7 @@ public final class PackRunner {
                     + "; the full move to the proposal would need turnover " + Explain.percent(fullTurnover) + ".";
         } else {
             mode = PackContent.Trading.Mode.OUT_OF_REACH;
-            NoSolutionException e = outOfReach.orElseThrow();
+            NoSolutionException e = res.outOfReach().orElseThrow();
             headline = (e.reason() == NoSolutionException.Reason.INFEASIBLE
                     ? "The proposal's target " + target + " cannot be reached within the policy's trading limits, "
                     + "so the pack proposes no trade list: "
@@ -533,7 +401,7 @@ public final class PackRunner {
                 .column(Table.Column.percent("tracking_error", "Tracking error against today"));
         cmp.row(CURRENT, now.expectedReturn(), now.expectedReturn(), now.volatility(), 0.0, 0.0, 0.0);
         cmp.row("Full move to the proposal", p.expectedReturn(), p.expectedReturn() - fullCost, p.volatility(),
-                fullTurnover, fullCost, RiskAnalysis.trackingError(u, w, h).value());
+                fullTurnover, fullCost, full.trackingError());
         rb.ifPresent(x -> cmp.row("Within the trading limits", x.proposedReturn(), x.proposedNetReturn(),
                 x.proposedVolatility(), x.turnover(), x.cost(), x.trackingError()));
 
@@ -548,7 +416,7 @@ public final class PackRunner {
                         + " moves the volatility from " + Explain.percent(p.volatility()) + " (the full move) to "
                         + Explain.percent(x.proposedVolatility()) + "; what each binding limit costs at the margin "
                         + "is below.";
-            } else if (lim.hasCosts() && fullNet < r.spec().proposed()) {
+            } else if (lim.hasCosts() && fullNet < res.spec().proposed()) {
                 reading = "No trading limit binds here: the move differs from the full move because trading costs "
                         + "are deducted from the return the target must reach; the full move would return "
                         + Explain.percent(fullNet) + " after costs, short of the " + target + " target.";

@@ -1,4 +1,4 @@
-package org.isorisk.notebooks.pack;
+package org.isorisk.cli.usecase;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
@@ -21,6 +21,7 @@ import org.isorisk.notebooks.PackLayout;
 import org.isorisk.notebooks.Text;
 import org.isorisk.notebooks.folder.PackFiles;
 import org.isorisk.notebooks.folder.PackFolder;
+import org.isorisk.notebooks.pack.PackSpec;
 import org.isorisk.notebooks.report.Table;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -29,11 +30,11 @@ import org.junit.jupiter.api.io.TempDir;
 class PackEndToEndTests {
 
     private static Path pack(Path dir) {
-        PackSpec spec = PackRunnerTests.spec("");
-        return write(dir, spec, PackRunnerTests.run(spec, Optional.of(new double[]{0.2, 0.5, 0.3})));
+        PackSpec spec = PackAnalysisTests.spec("");
+        return write(dir, spec, PackAnalysisTests.run(spec, Optional.of(new double[]{0.2, 0.5, 0.3})));
     }
 
-    private static Path write(Path dir, PackSpec spec, PackRunner.Outcome o) {
+    private static Path write(Path dir, PackSpec spec, PackAnalysisTests.Outcome o) {
         PackFolder f = new PackFolder("0.1.0-test", OffsetDateTime.parse("2025-06-30T12:00:00Z"))
                 .parameters(spec.toJson());
         return PackFiles.addTo(f, o.content()).commit(dir.resolve("pack"), false).folder();
@@ -64,9 +65,9 @@ class PackEndToEndTests {
 
     @Test
     void aPackUnderATurnoverLimitValidatesAndItsTablesFilesAndManifestAgree(@TempDir Path dir) throws IOException {
-        PackRunner.Outcome o = PackRunner.run(PackRunnerTests.limited(PackRunnerTests.longOnly(),
-                PackRunnerTests.turnover(0.70)));
-        Path folder = write(dir, PackRunnerTests.spec(""), o);
+        PackAnalysisTests.Outcome o = PackAnalysisTests.make(PackAnalysisTests.limited(PackAnalysisTests.longOnly(),
+                PackAnalysisTests.turnover(0.70)));
+        Path folder = write(dir, PackAnalysisTests.spec(""), o);
         Path nb = folder.resolve(PackLayout.NOTEBOOK);
         ExternalTools.Run v = ExternalTools.validate(nb);
         assertEquals(0, v.exit(), v.both());
@@ -107,9 +108,9 @@ class PackEndToEndTests {
 
     @Test
     void aPackWhoseTargetIsOutOfReachWithinTheLimitsValidatesAndSaysSo(@TempDir Path dir) throws IOException {
-        PackRunner.Outcome o = PackRunner.run(PackRunnerTests.limited(PackRunnerTests.longOnly(),
-                PackRunnerTests.turnover(0.01)));
-        Path folder = write(dir, PackRunnerTests.spec(""), o);
+        PackAnalysisTests.Outcome o = PackAnalysisTests.make(PackAnalysisTests.limited(PackAnalysisTests.longOnly(),
+                PackAnalysisTests.turnover(0.01)));
+        Path folder = write(dir, PackAnalysisTests.spec(""), o);
         Path nb = folder.resolve(PackLayout.NOTEBOOK);
         ExternalTools.Run v = ExternalTools.validate(nb);
         assertEquals(0, v.exit(), v.both());

@@ -1,4 +1,4 @@
-package org.isorisk.notebooks.pack;
+package org.isorisk.cli.usecase;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -26,10 +26,25 @@ import org.isorisk.engine.rebalance.Trade;
 import org.isorisk.engine.rebalance.TradingLimits;
 import org.isorisk.engine.solve.Allocator;
 import org.isorisk.notebooks.PackContent;
+import org.isorisk.notebooks.pack.PackComposer;
+import org.isorisk.notebooks.pack.PackResults;
+import org.isorisk.notebooks.pack.PackSpec;
 import org.isorisk.notebooks.report.Table;
 import org.junit.jupiter.api.Test;
 
-class PackRunnerTests {
+/** The pack's analyses ({@link PackAnalysis}) and their layout ({@link PackComposer}) against the engine's own answers. */
+class PackAnalysisTests {
+
+    /** What a pack run produced: the analyses' results and their layout. */
+    record Outcome(PackResults results, PackContent content) {
+    }
+
+    /** Runs the analyses of {@code r} and lays them out, without charts. */
+    static Outcome make(PackAnalysis.Request r) {
+        PackResults res = PackAnalysis.run(r);
+        return new Outcome(res, PackComposer.compose(res, new PackComposer.Request("", "0.1.0-test",
+                OffsetDateTime.parse("2025-06-30T12:00:00Z"), List.of(), List.of(), List.of(), x -> List.of())));
+    }
 
     /** Three invented assets, volatilities 2 %, 8 %, 16 %, correlations 0.1 / 0.2 / 0.5. */
     static AssetUniverse universe() {
@@ -56,9 +71,8 @@ class PackRunnerTests {
                 """ + extra), "pack.yaml");
     }
 
-    static PackRunner.Outcome run(PackSpec spec, Optional<double[]> holdings) {
-        return PackRunner.run(new PackRunner.Request(universe(), Mandate.fullyInvested(3), spec, holdings, "",
-                "0.1.0-test", OffsetDateTime.parse("2025-06-30T12:00:00Z"), List.of(), List.of(), List.of(), List.of(), r -> List.of()));
+    static Outcome run(PackSpec spec, Optional<double[]> holdings) {
+        return make(new PackAnalysis.Request(universe(), Mandate.fullyInvested(3), spec, holdings, List.of(), null));
     }
 
     /** Today's invented holdings of the three assets: expected return 3.60 %, short of the 5 % proposal. */
@@ -70,10 +84,8 @@ class PackRunnerTests {
     }
 
     /** The request of a pack run under trading limits, the holdings {@link #HELD}. */
-    static PackRunner.Request limited(Mandate m, TradingLimits limits) {
-        return new PackRunner.Request(universe(), m, spec(""), Optional.of(HELD), "", "0.1.0-test",
-                OffsetDateTime.parse("2025-06-30T12:00:00Z"), List.of(), List.of(), List.of(), List.of(),
-                r -> List.of(), limits);
+    static PackAnalysis.Request limited(Mandate m, TradingLimits limits) {
+        return new PackAnalysis.Request(universe(), m, spec(""), Optional.of(HELD), List.of(), limits);
     }
 
     /** Costs of 10, 20 and 30 basis points (invented) and a turnover limit. */
@@ -92,7 +104,7 @@ class PackRunnerTests {
 
     @Test
     void everyPortfolioIsTheEnginesAnswerToTheSameQuestion() {
-        PackRunner.Outcome o = run(spec(""), Optional.empty());
+        Outcome o = run(spec(""), Optional.empty());
         AllocationRequest base = AllocationRequest.of(universe(), Mandate.fullyInvested(3), Objective.minimumVariance());
         Solution direct = Allocator.solve(base.withObjective(Objective.targetReturn(0.05)));
         assertEquals(direct, o.results().proposal());
@@ -113,7 +125,7 @@ class PackRunnerTests {
     @Test
     void riskContributionsAddUpToTheProposalsVolatility() {
         // Euler's theorem for the degree-one homogeneous σ(w): Σ w_i ∂σ/∂w_i = σ.
-        PackRunner.Outcome o = run(spec(""), Optional.empty());
+        Outcome o = run(spec(""), Optional.empty());
         double sum = 0;
         for (double c : o.results().risk().component()) {
             sum += c;
@@ -123,7 +135,7 @@ class PackRunnerTests {
 
     @Test
     void everyBindingMultiplierBecomesItsSentence() {
-        PackRunner.Outcome o = run(spec(""), Optional.empty());
+        Outcome o = run(spec(""), Optional.empty());
         List<Multiplier> binding = o.results().proposal().binding();
         List<PackContent.Binding> shown = o.content().binding().stream()
                 .filter(b -> b.portfolio().equals("Target 5.00 %")).toList();
@@ -138,7 +150,7 @@ class PackRunnerTests {
     @Test
     void theTradeListIsTheProposalMinusTheHoldingsInWeightAndMoney() {
         double[] current = {0.5, 0.3, 0.2};
-        PackRunner.Outcome o = run(spec(""), Optional.of(current));
+        Outcome o = run(spec(""), Optional.of(current));
         Table t = o.content().trades().orElseThrow();
         double[] w = o.results().proposal().weights();
         for (int i = 0; i < 3; i++) {
@@ -158,13 +170,13 @@ class PackRunnerTests {
     void withoutTradingLimitsTheTradeListIsTheFullMoveAndThePackSaysSo() {
         // costs alone price trades but restrict none: still the full move
         for (TradingLimits none : List.of(TradingLimits.none(3), TradingLimits.none(3).withCostBps(new double[]{10, 20, 30}))) {
-            PackRunner.Outcome o = PackRunner.run(limited(Mandate.fullyInvested(3), none));
+            Outcome o = make(limited(Mandate.fullyInvested(3), none));
             assertTrue(o.results().rebalance().isEmpty());
             PackContent.Trading t = o.content().trading().orElseThrow();
             assertEquals(PackContent.Trading.Mode.FULL_MOVE, t.mode());
             assertTrue(t.headline().startsWith("No trading limit applies"), t.headline());
             Table trades = o.content().trades().orElseThrow();
-            assertEquals(PackRunner.FULL_MOVE_TITLE, trades.title());
+            assertEquals(PackComposer.FULL_MOVE_TITLE, trades.title());
             double[] w = o.results().proposal().weights();
             double turnover = 0;
             for (int i = 0; i < 3; i++) {
@@ -184,15 +196,15 @@ class PackRunnerTests {
     @Test
     void underATurnoverLimitTheTradeListIsTheRebalancersMoveAndStaysWithinIt() {
         Mandate m = longOnly();
-        double full = TradingLimits.turnover(HELD, PackRunner.run(limited(m, TradingLimits.none(3))).results()
+        double full = TradingLimits.turnover(HELD, make(limited(m, TradingLimits.none(3))).results()
                 .proposal().weights());
         // The cheapest way to gain 1.40 % of return after costs is Cash into Equity: 5 % more return less 0.40 % of
         // costs per unit, 0.30 each way, two-way turnover 0.61; a limit between that and the full move binds and
         // can be met (hand arithmetic on the invented numbers).
         assertTrue(full > 0.72, "the full move trades " + full);
         TradingLimits limits = turnover(0.70);
-        PackRunner.Request req = limited(m, limits);
-        PackRunner.Outcome o = PackRunner.run(req);
+        PackAnalysis.Request req = limited(m, limits);
+        Outcome o = make(req);
         RebalanceResult direct = Rebalancer.rebalance(new RebalanceRequest(universe(), m,
                 Holdings.ofWeights(universe().assets(), HELD, 1e6), limits, new RebalanceObjective.TargetReturn(0.05),
                 null));
@@ -202,7 +214,7 @@ class PackRunnerTests {
         PackContent.Trading t = o.content().trading().orElseThrow();
         assertEquals(PackContent.Trading.Mode.WITHIN_LIMITS, t.mode());
         Table trades = o.content().trades().orElseThrow();
-        assertEquals(PackRunner.WITHIN_LIMITS_TITLE, trades.title());
+        assertEquals(PackComposer.WITHIN_LIMITS_TITLE, trades.title());
         double turnover = 0;
         for (int i = 0; i < 3; i++) {
             Trade x = direct.trades().get(i);
@@ -219,7 +231,7 @@ class PackRunnerTests {
         assertTrue(direct.proposedNetReturn() >= 0.05 - tol);
         // the comparison shows the full move beside the move within the limit
         Table cmp = t.comparison();
-        assertEquals(List.of(PackRunner.CURRENT, "Full move to the proposal", "Within the trading limits"),
+        assertEquals(List.of(PackComposer.CURRENT, "Full move to the proposal", "Within the trading limits"),
                 cmp.rows().stream().map(r -> ((Table.Cell.Text) r.get(0)).value()).toList());
         assertEquals(full, number(cmp, 1, "turnover"), 1e-15);
         assertEquals(direct.turnover(), number(cmp, 2, "turnover"), 0.0);
@@ -241,7 +253,7 @@ class PackRunnerTests {
     @Test
     void aTurnoverLimitThatDoesNotBindIsReadAsSuchAndTheCostsMakeTheDifference() {
         // a limit far above any move: the rebalancer's answer is the least-risk portfolio for the target after costs
-        PackRunner.Outcome o = PackRunner.run(limited(longOnly(), turnover(1.9)));
+        Outcome o = make(limited(longOnly(), turnover(1.9)));
         PackContent.Trading t = o.content().trading().orElseThrow();
         assertEquals(PackContent.Trading.Mode.WITHIN_LIMITS, t.mode());
         assertTrue(t.sentences().get(0).startsWith("The turnover limit 190.00 % is not binding"), t.sentences().get(0));
@@ -251,7 +263,7 @@ class PackRunnerTests {
                 + "deducted from the return the target must reach; the full move would return "
                 + Explain.percent(fullNet) + " after costs, short of the 5.00 % target.", t.reading());
         // the same limit without costs: the move within the limits is the full move
-        PackRunner.Outcome free = PackRunner.run(limited(longOnly(), TradingLimits.none(3).withMaxTurnover(1.9)));
+        Outcome free = make(limited(longOnly(), TradingLimits.none(3).withMaxTurnover(1.9)));
         double[] full = free.results().proposal().weights();
         double[] moved = free.results().rebalance().orElseThrow().proposal().weights();
         for (int i = 0; i < 3; i++) {
@@ -267,7 +279,7 @@ class PackRunnerTests {
         NoSolutionException direct = assertThrows(NoSolutionException.class, () -> Rebalancer.rebalance(
                 new RebalanceRequest(universe(), longOnly(), Holdings.ofWeights(universe().assets(), HELD, 1e6),
                         limits, new RebalanceObjective.TargetReturn(0.05), null)));
-        PackRunner.Outcome o = PackRunner.run(limited(longOnly(), limits));
+        Outcome o = make(limited(longOnly(), limits));
         PackContent.Trading t = o.content().trading().orElseThrow();
         assertEquals(PackContent.Trading.Mode.OUT_OF_REACH, t.mode());
         assertTrue(t.headline().startsWith("The proposal's target 5.00 % cannot be reached within the policy's "
@@ -285,7 +297,7 @@ class PackRunnerTests {
     void theNoTradeListAndTheMinimumTradeReachTheRebalancer() {
         // Bonds on the no-trade list: the move goes through Cash and Equity alone
         TradingLimits limits = TradingLimits.none(3).withNoTrade(java.util.Set.of(1)).withMinTrade(0.001);
-        PackRunner.Outcome o = PackRunner.run(limited(longOnly(), limits));
+        Outcome o = make(limited(longOnly(), limits));
         assertEquals(PackContent.Trading.Mode.WITHIN_LIMITS, o.content().trading().orElseThrow().mode());
         Table trades = o.content().trades().orElseThrow();
         assertEquals(0.0, number(trades, 1, "change"));
@@ -296,7 +308,7 @@ class PackRunnerTests {
 
     @Test
     void theFrontierRunsFromTheMinimumVarianceReturnUpwardWithIncreasingRisk() {
-        PackRunner.Outcome o = run(spec(""), Optional.empty());
+        Outcome o = run(spec(""), Optional.empty());
         List<Solution> f = o.results().frontier().points();
         assertEquals(6, f.size());
         // the frontier's first point is the minimum-variance portfolio, solved by the sweep (to rounding)
@@ -316,15 +328,9 @@ class PackRunnerTests {
         double[] hi = {inf, inf, inf};
         // Cash and Bonds fixed: Equity is pinned by the budget, so no return target can be met as well.
         Mandate pinned = new Mandate(1.0, lo, hi, java.util.Map.of(0, 0.5, 1, 0.5), List.of(), List.of());
-        NoSolutionException e = assertThrows(NoSolutionException.class, () -> PackRunner.run(new PackRunner.Request(
-                universe(), pinned, s, Optional.empty(), "", "t", OffsetDateTime.now(), List.of(), List.of(), List.of(), List.of(),
-                r -> List.of())));
+        NoSolutionException e = assertThrows(NoSolutionException.class, () -> PackAnalysis.run(
+                new PackAnalysis.Request(universe(), pinned, s, Optional.empty(), List.of(), null)));
         assertTrue(e.getMessage().startsWith("target return 5.00 % of the pack file: "), e.getMessage());
     }
 
-    @Test
-    void columnKeysAreUniquePythonIdentifiers() {
-        assertEquals(List.of("government_bonds", "government_bonds_2", "asset_3_10y", "cafe", "asset_5"),
-                PackRunner.columnKeys(List.of("Government Bonds", "Government-Bonds", "10y", "Café", "€")));
-    }
 }

@@ -1,4 +1,4 @@
-package org.isorisk.notebooks.pack;
+package org.isorisk.cli.usecase;
 
 import java.io.IOException;
 import java.io.Reader;
@@ -16,6 +16,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import org.isorisk.engine.error.InputException;
+import org.isorisk.notebooks.pack.PackSpec;
 import org.yaml.snakeyaml.LoaderOptions;
 import org.yaml.snakeyaml.Yaml;
 import org.yaml.snakeyaml.error.MarkedYAMLException;
@@ -26,9 +27,13 @@ import org.yaml.snakeyaml.nodes.ScalarNode;
 import org.yaml.snakeyaml.nodes.SequenceNode;
 
 /**
- * Reads the pack file, a small YAML file of isorisk's own (documented in README.md, "The pack file"). Every
- * error names the file, the line and the key, and says what would fix it; unknown keys are errors too, so a
- * misspelt key is never silently ignored.
+ * Reads the pack file, a small YAML file of isorisk's own (documented in README.md, "The pack file"), into the
+ * {@link PackSpec} the pack's analyses and its layout both follow. Every error names the file, the line and the key,
+ * and says what would fix it; unknown keys are errors too, so a misspelt key is never silently ignored.
+ *
+ * <p>It lives with the pack use case rather than among the engine's readers: the pack file says which analyses
+ * and charts a pack wants, a question of the command line's use case, while {@code engine.io} reads the inputs of
+ * the analyses themselves (assumptions, policy, holdings, histories, scenarios) that several commands share.
  */
 public final class PackSpecReader {
     private PackSpecReader() {

@@ -1,4 +1,4 @@
-package org.isorisk.notebooks.pack;
+package org.isorisk.cli.usecase;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -10,6 +10,7 @@ import java.util.EnumSet;
 import java.util.List;
 import java.util.Optional;
 import org.isorisk.engine.error.InputException;
+import org.isorisk.notebooks.pack.PackSpec;
 import org.junit.jupiter.api.Test;
 
 class PackSpecReaderTests {
