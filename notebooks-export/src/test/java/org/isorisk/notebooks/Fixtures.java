@@ -123,4 +123,23 @@ public final class Fixtures {
         return new PackContent.Chart(name, kind, title, "What to read from " + title + ".", png.toByteArray(), svg,
                 new byte[]{'%', 'P', 'D', 'F'});
     }
+
+    /**
+     * Writes the files of {@code c} ({@link PackLayout#files}) into the folder {@code target}, created as needed,
+     * for the outside tools to read (the atomic folder and its manifest are the command line's, tested there).
+     */
+    public static void write(java.nio.file.Path target, PackContent c) {
+        try {
+            for (PackLayout.File f : PackLayout.files(c)) {
+                java.nio.file.Path file = target.resolve(f.path());
+                java.nio.file.Files.createDirectories(file.getParent());
+                try (java.io.OutputStream out = new java.io.BufferedOutputStream(
+                        java.nio.file.Files.newOutputStream(file))) {
+                    f.body().writeTo(out);
+                }
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
 }

@@ -10,13 +10,13 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.stream.Stream;
 import org.isorisk.cli.ExitCode;
+import org.isorisk.cli.files.PackFolder;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
+import org.isorisk.engine.io.Units;
 import org.isorisk.engine.io.UniverseFiles;
 import org.isorisk.engine.io.UniverseLoader;
-import org.isorisk.engine.io.Units;
-import org.isorisk.notebooks.folder.PackFolder;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 

@@ -1,4 +1,4 @@
-package org.isorisk.notebooks.folder;
+package org.isorisk.cli.files;
 
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;

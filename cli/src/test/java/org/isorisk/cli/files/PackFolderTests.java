@@ -1,4 +1,4 @@
-package org.isorisk.notebooks.folder;
+package org.isorisk.cli.files;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;

@@ -1,4 +1,4 @@
-package org.isorisk.notebooks.folder;
+package org.isorisk.cli.files;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
