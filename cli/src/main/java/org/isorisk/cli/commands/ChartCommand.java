@@ -2,8 +2,8 @@ package org.isorisk.cli.commands;
 
 import java.nio.file.Path;
 import java.util.Locale;
+import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.cli.render.Text;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.notebooks.chart.ChartFormat;
 import org.isorisk.notebooks.chart.ChartSettings;
 import org.isorisk.notebooks.chart.Charts;

@@ -10,7 +10,6 @@ import java.util.ArrayList;
 import java.util.List;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.RepairResult;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.EstimateReport;
 import org.isorisk.engine.io.RepairReport;
 import org.isorisk.engine.io.ResultJson;

@@ -25,7 +25,6 @@ import java.util.Objects;
 import java.util.regex.Pattern;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.notebooks.PackLayout;
 
 /**

@@ -2,7 +2,6 @@ package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.risk.AssumptionSummary;
@@ -66,8 +65,7 @@ public record CheckView(LoadedUniverse inputs, AssumptionSummary summary) implem
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "check", inputs.provenance(), inputs.warnings());
             c.comment("smallest_eigenvalue", CsvWriter.number(summary.smallestEigenvalue()));
             c.comment("largest_eigenvalue", CsvWriter.number(summary.largestEigenvalue()));

@@ -7,7 +7,6 @@ import java.util.List;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.Issue;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.EstimateReport;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.notebooks.report.CsvWriter;
@@ -55,8 +54,7 @@ public record EstimateView(Estimate estimate, Path outDir, List<String> files, d
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             c.comment("command", "estimate");
             c.comment("source", estimate.source());
             c.comment("method", EstimateReport.method(estimate));

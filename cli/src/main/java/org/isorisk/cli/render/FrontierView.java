@@ -5,7 +5,6 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.ArrayList;
 import java.util.List;
 import org.isorisk.engine.explain.Explain;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Corner;
@@ -287,8 +286,7 @@ public record FrontierView(Frontier frontier, Method method, String policy, Load
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "frontier", inputs.provenance(), warnings);
             c.comment("method", method.label());
             c.comment("policy", policy == null ? "none (budget only; short positions allowed)" : policy);

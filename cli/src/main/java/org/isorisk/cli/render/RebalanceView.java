@@ -2,7 +2,6 @@ package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.RebalanceStressJson;
 import org.isorisk.engine.io.ResultJson;
@@ -119,8 +118,7 @@ public record RebalanceView(RebalanceResult result, Provenance provenance, List<
     @Override
     public String csv() {
         RebalanceResult r = result;
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "rebalance", provenance, warnings);
             c.comment("objective", r.objective());
             c.comment("turnover_convention", RebalanceResult.TURNOVER_CONVENTION);

@@ -6,7 +6,6 @@ import java.nio.file.Path;
 import java.util.List;
 import org.isorisk.engine.estimate.RepairResult;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.RepairReport;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.notebooks.report.CsvWriter;
@@ -49,8 +48,7 @@ public record RepairView(RepairResult result, String source, Path outDir, List<S
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             c.comment("command", "check --repair");
             c.comment("source", source);
             c.comment("changed", Boolean.toString(result.changed()));

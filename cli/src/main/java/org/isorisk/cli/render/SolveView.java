@@ -4,7 +4,6 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import java.util.Map;
 import org.isorisk.engine.explain.Explain;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Certificate;
@@ -160,8 +159,7 @@ public record SolveView(Solution solution, RiskDecomposition risk, Objective obj
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "solve", inputs.provenance(), warnings);
             c.comment("objective", title());
             c.comment("status", solution.status().label());

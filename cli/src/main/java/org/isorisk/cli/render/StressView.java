@@ -2,7 +2,6 @@ package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.io.RebalanceStressJson;
 import org.isorisk.engine.io.ResultJson;
@@ -97,8 +96,7 @@ public record StressView(StressResult result, Provenance provenance, List<String
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "stress", provenance, warnings);
             for (String n : result.notes()) {
                 c.comment("note", n);

@@ -1,4 +1,4 @@
-package org.isorisk.engine.io;
+package org.isorisk.cli.files;
 
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;

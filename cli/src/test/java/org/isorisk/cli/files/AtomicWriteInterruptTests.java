@@ -1,4 +1,4 @@
-package org.isorisk.engine.io;
+package org.isorisk.cli.files;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
