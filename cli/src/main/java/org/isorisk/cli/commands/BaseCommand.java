@@ -8,10 +8,10 @@ import java.util.concurrent.Callable;
 import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.Reporting;
 import org.isorisk.cli.files.AtomicWrite;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.render.Rendered;
-import org.isorisk.engine.io.ResultJson;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Model.OptionSpec;
 import picocli.CommandLine.Spec;
@@ -70,7 +70,7 @@ public abstract class BaseCommand implements Callable<Integer>, Reporting {
     protected void emit(Rendered r, Optional<Path> file) {
         Format f = format();
         String text = switch (f) {
-            case JSON -> AtomicWrite.text(w -> ResultJson.write(ResultJson.finish(r.json(), elapsedMillis()), w));
+            case JSON -> ResultJson.text(ResultJson.finish(r.json(), elapsedMillis()));
             case CSV -> r.csv();
             case TABLE -> r.table();
         };

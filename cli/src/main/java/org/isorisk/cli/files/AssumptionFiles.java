@@ -8,11 +8,11 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import org.isorisk.cli.json.ResultJson;
+import org.isorisk.cli.render.EstimateReport;
+import org.isorisk.cli.render.RepairReport;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.RepairResult;
-import org.isorisk.engine.io.EstimateReport;
-import org.isorisk.engine.io.RepairReport;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.notebooks.report.CsvWriter;
 
 /**

@@ -138,17 +138,6 @@ public final class AtomicWrite {
         }
     }
 
-    /** Text of a {@link TextBody}, for writing to a terminal the same bytes as to a file. */
-    public static String text(TextBody body) {
-        java.io.StringWriter w = new java.io.StringWriter();
-        try {
-            body.write(w);
-        } catch (IOException e) {
-            throw new IllegalStateException("a StringWriter does not fail", e);
-        }
-        return w.toString();
-    }
-
     /**
      * Writes the folder {@code target} atomically: {@code body} fills a temporary folder beside it, which then
      * replaces {@code target}. An existing target is replaced only when it is empty or was written by this class

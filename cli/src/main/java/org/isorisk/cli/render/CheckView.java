@@ -2,8 +2,8 @@ package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.io.LoadedUniverse;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.risk.AssumptionSummary;
 import org.isorisk.notebooks.report.CsvWriter;
 

@@ -4,11 +4,11 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.StringWriter;
 import java.nio.file.Path;
 import java.util.List;
+import org.isorisk.cli.json.ResultJson;
+import org.isorisk.cli.render.EstimateReport;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.Issue;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.EstimateReport;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.notebooks.report.CsvWriter;
 
 /**

@@ -2,9 +2,9 @@ package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
+import org.isorisk.cli.json.RebalanceStressJson;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.io.Provenance;
-import org.isorisk.engine.io.RebalanceStressJson;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.rebalance.Breach;
 import org.isorisk.engine.rebalance.RebalanceResult;

@@ -4,10 +4,10 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.StringWriter;
 import java.nio.file.Path;
 import java.util.List;
+import org.isorisk.cli.json.ResultJson;
+import org.isorisk.cli.render.RepairReport;
 import org.isorisk.engine.estimate.RepairResult;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.RepairReport;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.notebooks.report.CsvWriter;
 
 /**

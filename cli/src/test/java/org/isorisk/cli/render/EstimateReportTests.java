@@ -1,4 +1,4 @@
-package org.isorisk.engine.io;
+package org.isorisk.cli.render;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -8,16 +8,17 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.io.StringWriter;
 import java.util.List;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.estimate.CovarianceMethod;
-import org.isorisk.engine.estimate.EstimationSettings;
 import org.isorisk.engine.estimate.Estimate;
+import org.isorisk.engine.estimate.EstimationSettings;
 import org.isorisk.engine.estimate.Estimator;
 import org.isorisk.engine.estimate.History;
 import org.isorisk.engine.estimate.ValueKind;
 import org.isorisk.engine.explain.Caution;
 import org.junit.jupiter.api.Test;
 
-class TablesTests {
+class EstimateReportTests {
 
     @Test
     void theReportsCarryTheCautionAndParseBack() throws IOException {

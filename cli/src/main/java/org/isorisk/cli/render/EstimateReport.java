@@ -1,4 +1,4 @@
-package org.isorisk.engine.io;
+package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -6,6 +6,7 @@ import java.io.PrintWriter;
 import java.io.Writer;
 import java.util.List;
 import java.util.Locale;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.estimate.CovarianceMethod;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.Issue;

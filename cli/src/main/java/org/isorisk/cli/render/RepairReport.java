@@ -1,10 +1,11 @@
-package org.isorisk.engine.io;
+package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
 import java.io.Writer;
 import java.util.Locale;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.estimate.RepairResult;
 import org.isorisk.engine.explain.Caution;
 

@@ -1,4 +1,4 @@
-package org.isorisk.engine.io;
+package org.isorisk.cli.json;
 
 import com.fasterxml.jackson.core.JsonFactory;
 import com.fasterxml.jackson.core.JsonGenerator;
@@ -15,6 +15,8 @@ import java.util.List;
 import java.util.Map;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
+import org.isorisk.engine.io.Provenance;
+import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.model.Certificate;
 import org.isorisk.engine.model.Corner;
 import org.isorisk.engine.model.MertonScalars;
@@ -250,6 +252,17 @@ public final class ResultJson {
         number(t, "total", totalMillis);
         o.put("caution", Caution.TEXT);
         return o;
+    }
+
+    /** The text {@link #write} writes, for printing to a terminal the same bytes as to a file. */
+    public static String text(JsonNode node) {
+        java.io.StringWriter w = new java.io.StringWriter();
+        try {
+            write(node, w);
+        } catch (IOException e) {
+            throw new IllegalStateException("a StringWriter does not fail", e);
+        }
+        return w.toString();
     }
 
     /** Writes {@code node} pretty-printed with a final line break; the writer is flushed, not closed. */

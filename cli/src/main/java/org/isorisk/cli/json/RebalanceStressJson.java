@@ -1,4 +1,4 @@
-package org.isorisk.engine.io;
+package org.isorisk.cli.json;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
