@@ -5,6 +5,8 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.util.List;
 import java.util.Locale;
+import org.isorisk.cli.commands.ExitCode;
+import org.isorisk.cli.commands.Reporting;
 import org.isorisk.cli.json.ResultJson;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.engine.error.InputException;

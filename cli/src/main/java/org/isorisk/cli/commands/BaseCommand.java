@@ -5,13 +5,12 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
-import org.isorisk.cli.ExitCode;
-import org.isorisk.cli.Reporting;
 import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.cli.json.ResultJson;
 import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.render.Rendered;
+import picocli.CommandLine.IVersionProvider;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Model.OptionSpec;
 import picocli.CommandLine.Spec;
@@ -41,6 +40,20 @@ public abstract class BaseCommand implements Callable<Integer>, Reporting {
     protected final Format format() {
         OptionSpec option = spec == null ? null : spec.findOption(FormatOption.NAME);
         return option != null && option.getValue() instanceof Format f ? f : Format.TABLE;
+    }
+
+    /**
+     * isorisk's version as the root command's version provider gives it (without the leading "isorisk "), for
+     * records of a run; {@code (unknown version)} when there is none.
+     */
+    protected String toolVersion() {
+        IVersionProvider provider = spec == null ? null : spec.root().versionProvider();
+        try {
+            String[] v = provider == null ? new String[0] : provider.getVersion();
+            return v.length == 0 ? "(unknown version)" : v[0].replaceFirst("^isorisk ", "");
+        } catch (Exception e) {
+            return "(unknown version)";
+        }
     }
 
     @Override

@@ -4,7 +4,6 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
-import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.files.AssumptionFiles;
 import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.cli.options.Decimal;

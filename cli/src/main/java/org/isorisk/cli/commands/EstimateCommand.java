@@ -5,7 +5,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.function.Function;
-import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.files.AssumptionFiles;
 import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.cli.options.Decimal;

@@ -9,8 +9,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
-import org.isorisk.cli.ExitCode;
-import org.isorisk.cli.IsoriskCommand;
 import org.isorisk.cli.files.PackFiles;
 import org.isorisk.cli.files.PackFolder;
 import org.isorisk.cli.options.InputOptions;
@@ -86,7 +84,7 @@ public final class PackCommand extends BaseCommand {
     @Override
     protected ExitCode execute() {
         LoadedUniverse u = inputs.load(true);
-        Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of());
+        Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of(), toolVersion());
         warn(made.warnings());
         out().print(made.summary());
         out().flush();
@@ -113,9 +111,10 @@ public final class PackCommand extends BaseCommand {
      * Reads the policy, holdings and pack file, runs the analysis and writes the folder; shared with {@code demo}.
      *
      * @param extraInputs further files to record and copy (e.g. the demo's README), as role and path
+     * @param version     isorisk's version, for the manifest and the run record ({@link BaseCommand#toolVersion})
      */
     static Made make(LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile, Units units, Path out,
-                     boolean force, List<PackFolder.Input> extraInputs) {
+                     boolean force, List<PackFolder.Input> extraInputs, String version) {
         PackSpec spec = PackSpecReader.read(packFile);
         PolicyOption.Loaded loaded = policyOption.load(read);
         LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
@@ -142,7 +141,6 @@ public final class PackCommand extends BaseCommand {
         u.provenance().asOfDate().filter(d -> !d.equals(asOf)).ifPresent(d -> notes.add(
                 "The pack file's as-of date differs from the inputs' (" + d + "); the pack shows the pack file's."));
 
-        String version = version();
         OffsetDateTime now = OffsetDateTime.now(ZoneOffset.UTC).truncatedTo(ChronoUnit.SECONDS);
         PackFolder folder = new PackFolder(version, now);
         List<PackContent.InputFile> recorded = new ArrayList<>();
@@ -217,14 +215,6 @@ public final class PackCommand extends BaseCommand {
     private static String safeName(Path file) {
         String n = file.getFileName().toString().replaceAll("[^a-zA-Z0-9._-]", "_");
         return n.isEmpty() || !Character.isLetterOrDigit(n.charAt(0)) ? "input_" + n : n;
-    }
-
-    private static String version() {
-        try {
-            return new IsoriskCommand.Version().getVersion()[0].replaceFirst("^isorisk ", "");
-        } catch (java.io.IOException e) {
-            return "(unknown version)";
-        }
     }
 
     /** The short terminal summary: fund, proposal, minimum variance, binding constraints, where the notebook is. */

@@ -1,7 +1,6 @@
 package org.isorisk.cli.commands;
 
 import java.nio.file.Path;
-import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.ChartFileOptions;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.engine.io.LoadedUniverse;

@@ -5,7 +5,6 @@ import java.io.StringWriter;
 import java.nio.file.Path;
 import java.util.List;
 import org.isorisk.cli.json.ResultJson;
-import org.isorisk.cli.render.EstimateReport;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.Issue;
 import org.isorisk.engine.explain.Caution;

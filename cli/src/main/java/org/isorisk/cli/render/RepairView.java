@@ -5,7 +5,6 @@ import java.io.StringWriter;
 import java.nio.file.Path;
 import java.util.List;
 import org.isorisk.cli.json.ResultJson;
-import org.isorisk.cli.render.RepairReport;
 import org.isorisk.engine.estimate.RepairResult;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.notebooks.report.CsvWriter;

@@ -1,4 +1,4 @@
-package org.isorisk.cli;
+package org.isorisk.cli.commands;
 
 /** What the {@link ErrorHandler} needs to know about the command that failed. */
 public interface Reporting {

@@ -1,4 +1,4 @@
-package org.isorisk.cli;
+package org.isorisk.cli.render;
 
 import java.io.PrintWriter;
 import java.util.Locale;

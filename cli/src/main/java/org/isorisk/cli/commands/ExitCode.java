@@ -1,4 +1,4 @@
-package org.isorisk.cli;
+package org.isorisk.cli.commands;
 
 /** The process exit codes, documented in the README. */
 public enum ExitCode {
