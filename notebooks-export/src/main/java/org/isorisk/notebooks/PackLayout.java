@@ -33,8 +33,8 @@ public final class PackLayout {
      * @param path relative path inside the pack folder, {@code /} separated
      * @param body writes its bytes
      */
-    public record File(String path, Body body) {
-        public File {
+    public record Entry(String path, Body body) {
+        public Entry {
             Objects.requireNonNull(path, "path");
             Objects.requireNonNull(body, "body");
         }
@@ -45,24 +45,24 @@ public final class PackLayout {
      * schema, the CSV tables and the chart files (PNG, SVG and, when made, PDF). The manifest and copies of the
      * inputs are the folder writer's.
      */
-    public static List<File> files(PackContent content) {
-        List<File> out = new ArrayList<>();
-        out.add(new File(NOTEBOOK, o -> NotebookWriter.write(content, o)));
-        out.add(new File(HELPER, TableSchema::writeHelper));
-        out.add(new File(SCHEMA, o -> TableSchema.write(content.tables(), o)));
+    public static List<Entry> files(PackContent content) {
+        List<Entry> out = new ArrayList<>();
+        out.add(new Entry(NOTEBOOK, o -> NotebookWriter.write(content, o)));
+        out.add(new Entry(HELPER, TableSchema::writeHelper));
+        out.add(new Entry(SCHEMA, o -> TableSchema.write(content.tables(), o)));
         for (Table t : content.tables()) {
-            out.add(new File(table(t.name()), o -> {
+            out.add(new Entry(table(t.name()), o -> {
                 Writer w = new OutputStreamWriter(o, StandardCharsets.UTF_8);
                 CsvWriter.write(t, w);
                 w.flush();
             }));
         }
         for (PackContent.Chart c : content.charts()) {
-            out.add(new File(chart(c.name(), "png"), o -> o.write(c.png())));
-            out.add(new File(chart(c.name(), "svg"), o -> o.write(c.svg().getBytes(StandardCharsets.UTF_8))));
+            out.add(new Entry(chart(c.name(), "png"), o -> o.write(c.png())));
+            out.add(new Entry(chart(c.name(), "svg"), o -> o.write(c.svg().getBytes(StandardCharsets.UTF_8))));
             byte[] pdf = c.pdf();
             if (pdf.length > 0) {
-                out.add(new File(chart(c.name(), "pdf"), o -> o.write(pdf)));
+                out.add(new Entry(chart(c.name(), "pdf"), o -> o.write(pdf)));
             }
         }
         return out;

@@ -130,7 +130,7 @@ public final class Fixtures {
      */
     public static void write(java.nio.file.Path target, PackContent c) {
         try {
-            for (PackLayout.File f : PackLayout.files(c)) {
+            for (PackLayout.Entry f : PackLayout.files(c)) {
                 java.nio.file.Path file = target.resolve(f.path());
                 java.nio.file.Files.createDirectories(file.getParent());
                 try (java.io.OutputStream out = new java.io.BufferedOutputStream(

@@ -16,7 +16,7 @@ public final class PackFiles {
      * when made, PDF).
      */
     public static PackFolder addTo(PackFolder folder, PackContent content) {
-        for (PackLayout.File f : PackLayout.files(content)) {
+        for (PackLayout.Entry f : PackLayout.files(content)) {
             folder.add(f.path(), out -> f.body().writeTo(out));
         }
         return folder;
