@@ -32,7 +32,10 @@ import org.isorisk.notebooks.pack.PackSpec;
 import org.isorisk.notebooks.report.Table;
 import org.junit.jupiter.api.Test;
 
-/** The pack's analyses ({@link PackAnalysis}) and their layout ({@link PackComposer}) against the engine's own answers. */
+/**
+ * The pack's analyses ({@link PackAnalysis}) and their layout ({@link PackComposer}) against the engine's own
+ * answers.
+ */
 class PackAnalysisTests {
 
     /** What a pack run produced: the analyses' results and their layout. */

@@ -52,7 +52,8 @@ public final class PackComposer {
     /** Title of the trade table when it is the full move to the proposal. */
     public static final String FULL_MOVE_TITLE = "Trades from the current holdings: the full move to the proposal";
     /** Title of the trade table when it is the rebalancer's move within the trading limits. */
-    public static final String WITHIN_LIMITS_TITLE = "Trades from the current holdings within the policy's trading limits";
+    public static final String WITHIN_LIMITS_TITLE =
+            "Trades from the current holdings within the policy's trading limits";
 
     /**
      * What the pack says besides the results: how the assumptions were made, the run record, the charts.

@@ -9,8 +9,8 @@ import java.util.Set;
 import org.isorisk.engine.error.InputException;
 
 /**
- * What a committee pack shows, as read from the pack file (by the command line's pack use case): the fund, the targets, the
- * proposal, the charts and their formats. Numbers are decimals (0.055 is 5.5 %), annualised.
+ * What a committee pack shows, as read from the pack file (by the command line's pack use case): the fund, the
+ * targets, the proposal, the charts and their formats. Numbers are decimals (0.055 is 5.5 %), annualised.
  *
  * @param fund           the fund's name, as the title shows it
  * @param currency       the currency the fund reports in (e.g. GBP), shown in the title and on amounts
