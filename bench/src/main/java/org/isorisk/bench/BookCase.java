@@ -19,7 +19,7 @@ import java.util.SplittableRandom;
 import java.util.concurrent.TimeUnit;
 import org.isorisk.engine.book.BookSpec;
 import org.isorisk.engine.book.Job;
-import org.isorisk.engine.io.CsvCells;
+import org.isorisk.engine.book.CsvCells;
 import org.isorisk.engine.io.Units;
 import org.isorisk.engine.model.AssetUniverse;
 import org.isorisk.engine.model.Mandate;

@@ -15,14 +15,14 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Random;
 import java.util.stream.Stream;
+import org.isorisk.cli.files.AssumptionFiles;
+import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.engine.estimate.CovarianceMethod;
-import org.isorisk.engine.estimate.EstimationSettings;
 import org.isorisk.engine.estimate.Estimate;
+import org.isorisk.engine.estimate.EstimationSettings;
 import org.isorisk.engine.estimate.Estimator;
 import org.isorisk.engine.estimate.History;
 import org.isorisk.engine.estimate.ValueKind;
-import org.isorisk.engine.io.AssumptionFiles;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.DateFormat;
 import org.isorisk.engine.io.HistoryReader;
 

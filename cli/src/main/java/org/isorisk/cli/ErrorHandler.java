@@ -5,14 +5,16 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.util.List;
 import java.util.Locale;
+import org.isorisk.cli.commands.ExitCode;
+import org.isorisk.cli.commands.Reporting;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.error.IsoriskException;
 import org.isorisk.engine.error.NoSolutionException;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Status;
-import picocli.CommandLine;
 import picocli.CommandLine.ParameterException;
+import picocli.CommandLine;
 
 /**
  * Turns every failure into a named exit code. User errors (bad input, bad usage, no solution) print one line

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import org.isorisk.cli.commands.BaseCommand;
+import org.isorisk.cli.commands.ExitCode;
 import org.isorisk.engine.explain.Caution;
 import org.junit.jupiter.api.Test;
 import picocli.CommandLine;

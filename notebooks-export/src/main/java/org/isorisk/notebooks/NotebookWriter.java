@@ -20,6 +20,7 @@ import java.util.Optional;
 import java.util.Set;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
+import org.isorisk.notebooks.report.Table;
 
 /**
  * Writes a {@link PackContent} as a Jupyter notebook in the open nbformat 4.5 format (JSON built as a Jackson

@@ -5,11 +5,12 @@ import java.time.OffsetDateTime;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import org.isorisk.notebooks.report.Table;
 
 /**
  * Everything the committee notebook says, as plain values: text as given (the exporter escapes it), numbers
- * as decimals, tables as {@link Table}s, charts as image bytes. Built by the pack runner from engine results;
- * the notebook writer only lays it out.
+ * as decimals, tables as {@link Table}s, charts as image bytes. Built by {@code notebooks.pack.PackComposer} from
+ * engine results; the notebook writer only lays it out.
  *
  * @param heading     fund, currency, as-of date, caution
  * @param assumptions the capital-market assumptions and how they were made

@@ -1,12 +1,71 @@
 package org.isorisk.notebooks;
 
+import java.io.IOException;
+import java.io.OutputStream;
+import java.io.OutputStreamWriter;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.isorisk.notebooks.report.CsvWriter;
+import org.isorisk.notebooks.report.Table;
+
 /**
- * The names of the files inside a pack folder, relative to the folder, with {@code /} separators. The
- * notebook refers to its tables and charts by these names, and the folder writer writes them there; keeping
- * them in one place keeps the two in step.
+ * The files of a pack folder: their names, relative to the folder, with {@code /} separators, and what goes into
+ * each ({@link #files}). The notebook refers to its tables and charts by these names, and the folder writer
+ * writes them there; keeping them in one place keeps the two in step. Choosing the folder and writing it is the
+ * command line's job.
  */
 public final class PackLayout {
     private PackLayout() {
+    }
+
+    /** Writes the bytes of one file of the pack to the stream it is given (not closed). */
+    @FunctionalInterface
+    public interface Body {
+        void writeTo(OutputStream out) throws IOException;
+    }
+
+    /**
+     * One file of the pack.
+     *
+     * @param path relative path inside the pack folder, {@code /} separated
+     * @param body writes its bytes
+     */
+    public record Entry(String path, Body body) {
+        public Entry {
+            Objects.requireNonNull(path, "path");
+            Objects.requireNonNull(body, "body");
+        }
+    }
+
+    /**
+     * The files of {@code content}, in the order they are written: the notebook, its Python helper and table
+     * schema, the CSV tables and the chart files (PNG, SVG and, when made, PDF). The manifest and copies of the
+     * inputs are the folder writer's.
+     */
+    public static List<Entry> files(PackContent content) {
+        List<Entry> out = new ArrayList<>();
+        out.add(new Entry(NOTEBOOK, o -> NotebookWriter.write(content, o)));
+        out.add(new Entry(HELPER, TableSchema::writeHelper));
+        out.add(new Entry(SCHEMA, o -> TableSchema.write(content.tables(), o)));
+        for (Table t : content.tables()) {
+            out.add(new Entry(table(t.name()), o -> {
+                Writer w = new OutputStreamWriter(o, StandardCharsets.UTF_8);
+                CsvWriter.write(t, w);
+                w.flush();
+            }));
+        }
+        for (PackContent.Chart c : content.charts()) {
+            out.add(new Entry(chart(c.name(), "png"), o -> o.write(c.png())));
+            out.add(new Entry(chart(c.name(), "svg"), o -> o.write(c.svg().getBytes(StandardCharsets.UTF_8))));
+            byte[] pdf = c.pdf();
+            if (pdf.length > 0) {
+                out.add(new Entry(chart(c.name(), "pdf"), o -> o.write(pdf)));
+            }
+        }
+        return out;
     }
 
     /** The notebook's file name. */

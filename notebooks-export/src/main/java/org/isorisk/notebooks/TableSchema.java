@@ -12,6 +12,7 @@ import java.io.OutputStream;
 import java.io.UncheckedIOException;
 import java.util.List;
 import java.util.Locale;
+import org.isorisk.notebooks.report.Table;
 
 /**
  * The description of a pack's tables that its Python helper reads ({@link PackLayout#SCHEMA}): for each table

@@ -4,6 +4,7 @@ import java.math.BigDecimal;
 import java.math.MathContext;
 import java.math.RoundingMode;
 import java.util.Locale;
+import org.isorisk.notebooks.report.Table;
 
 /**
  * Escaping of text that comes from inputs (asset, group and fund names) before it goes into HTML, Markdown or

@@ -44,12 +44,27 @@ public final class ExternalTools {
                         + packages + " (apt-get install -y " + packages + ")");
     }
 
-    /** The path of a test resource script, e.g. {@code python/validate_notebook.py}. */
+    /**
+     * The path of a test resource script, e.g. {@code python/validate_notebook.py}; when the resource is inside a
+     * jar (this module's test jar, as other modules' tests see it) it is copied to a temporary file first.
+     */
     public static Path script(String name) {
+        java.net.URL url = ExternalTools.class.getResource("/" + name);
+        if (url == null) {
+            throw new IllegalStateException("test resource " + name + " not found");
+        }
         try {
-            return Path.of(ExternalTools.class.getResource("/" + name).toURI());
-        } catch (URISyntaxException e) {
-            throw new IllegalStateException(e);
+            if (url.getProtocol().equals("file")) {
+                return Path.of(url.toURI());
+            }
+            Path copy = Files.createTempFile("isorisk-test-", "-" + Path.of(name).getFileName());
+            copy.toFile().deleteOnExit();
+            try (java.io.InputStream in = url.openStream()) {
+                Files.copy(in, copy, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+            }
+            return copy;
+        } catch (URISyntaxException | java.io.IOException e) {
+            throw new IllegalStateException("test resource " + name + " could not be read", e);
         }
     }
 

@@ -14,6 +14,7 @@ import java.util.List;
 import java.util.Optional;
 import javax.imageio.ImageIO;
 import org.isorisk.engine.explain.Caution;
+import org.isorisk.notebooks.report.Table;
 
 /** Pack contents for the notebook tests: invented numbers, with ordinary or hostile asset names. */
 public final class Fixtures {
@@ -121,5 +122,24 @@ public final class Fixtures {
                 + "r=\"30\" fill=\"#336699\"/></svg>";
         return new PackContent.Chart(name, kind, title, "What to read from " + title + ".", png.toByteArray(), svg,
                 new byte[]{'%', 'P', 'D', 'F'});
+    }
+
+    /**
+     * Writes the files of {@code c} ({@link PackLayout#files}) into the folder {@code target}, created as needed,
+     * for the outside tools to read (the atomic folder and its manifest are the command line's, tested there).
+     */
+    public static void write(java.nio.file.Path target, PackContent c) {
+        try {
+            for (PackLayout.Entry f : PackLayout.files(c)) {
+                java.nio.file.Path file = target.resolve(f.path());
+                java.nio.file.Files.createDirectories(file.getParent());
+                try (java.io.OutputStream out = new java.io.BufferedOutputStream(
+                        java.nio.file.Files.newOutputStream(file))) {
+                    f.body().writeTo(out);
+                }
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
     }
 }

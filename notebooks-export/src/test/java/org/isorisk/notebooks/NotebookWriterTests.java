@@ -11,7 +11,6 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.OffsetDateTime;
 import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
@@ -19,8 +18,6 @@ import java.util.Set;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.notebooks.folder.PackFiles;
-import org.isorisk.notebooks.folder.PackFolder;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -45,7 +42,7 @@ class NotebookWriterTests {
             throw new java.io.UncheckedIOException(e);
         }
         Path target = dir.resolve("pack");
-        PackFiles.addTo(new PackFolder("0.1.0-test", OffsetDateTime.now()), c).commit(target, false);
+        Fixtures.write(target, c);
         return target;
     }
 

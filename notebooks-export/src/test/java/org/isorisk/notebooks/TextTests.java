@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import org.isorisk.notebooks.report.Table;
 import org.junit.jupiter.api.Test;
 
 class TextTests {

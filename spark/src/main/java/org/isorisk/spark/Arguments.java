@@ -13,8 +13,9 @@ import org.isorisk.engine.model.Status;
 /**
  * The arguments of the Spark job, named as {@code isorisk batch}'s options: {@code --book}, {@code --job},
  * {@code --expected-returns}, {@code --covariance}, {@code --volatilities}, {@code --correlation},
- * {@code --assumption-sets}, {@code --policy}, {@code --scenarios}, {@code --units}, {@code --json},
- * {@code --out-dir}; and the job's own {@code --partitions N} and {@code --format csv|parquet|both} (default both).
+ * {@code --assumption-sets}, {@code --policy}, {@code --scenarios}, {@code --units}, {@code --out-dir} (not
+ * {@code --json}: the single commands' JSON shapes belong to the command line); and the job's own
+ * {@code --partitions N} and {@code --format csv|parquet|both} (default both).
  * Paths are Hadoop paths (a local path, {@code hdfs://...}, {@code s3a://...}).
  *
  * @param spec    what to run
@@ -26,7 +27,7 @@ record Arguments(BookSpec spec, String outDir, BookOnSpark.Options options) {
     /** The usage line of a refusal. */
     static final String USAGE = "usage: spark-submit --class org.isorisk.spark.BookOnSpark isorisk-spark.jar --book "
             + "BOOK.csv --job solve|rebalance|stress --out-dir DIR [--expected-returns FILE --covariance FILE] "
-            + "[--assumption-sets FILE] [--policy FILE] [--scenarios FILE] [--units decimal|percent] [--json] "
+            + "[--assumption-sets FILE] [--policy FILE] [--scenarios FILE] [--units decimal|percent] "
             + "[--partitions N] [--format csv|parquet|both]";
 
     static Arguments parse(String[] args) {
@@ -41,15 +42,14 @@ record Arguments(BookSpec spec, String outDir, BookOnSpark.Options options) {
         String policy = null;
         String scenarios = null;
         Units units = Units.DECIMAL;
-        boolean json = false;
         int partitions = 0;
         String format = "both";
         List<String> a = List.of(args);
         for (int i = 0; i < a.size(); i++) {
             String k = a.get(i);
             if (k.equals("--json")) {
-                json = true;
-                continue;
+                throw refuse("--json (each portfolio's JSON) is written by isorisk batch; the Spark job writes the "
+                        + "tables (CSV and Parquet)");
             }
             if (i + 1 >= a.size()) {
                 throw refuse("option " + k + " needs a value");
@@ -98,7 +98,7 @@ record Arguments(BookSpec spec, String outDir, BookOnSpark.Options options) {
         if (!List.of("csv", "parquet", "both").contains(format)) {
             throw refuse("--format '" + format + "' is not known; use csv, parquet or both");
         }
-        BookSpec spec = new BookSpec(j, book, mu, cov, vol, cor, sets, policy, scenarios, units, json);
+        BookSpec spec = new BookSpec(j, book, mu, cov, vol, cor, sets, policy, scenarios, units, false);
         return new Arguments(spec, out, new BookOnSpark.Options(partitions, !format.equals("parquet"),
                 !format.equals("csv")));
     }

@@ -40,7 +40,6 @@ import org.isorisk.engine.book.BookTables;
 import org.isorisk.engine.book.PortfolioResult;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.io.InputFile;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Status;
 
 /**
@@ -50,7 +49,7 @@ import org.isorisk.engine.model.Status;
  * they are spread over the partitions, and each partition runs the engine's {@link BookJob} on its rows (one job per
  * executor JVM, opened once: the assumptions read and factored once). The results are sorted back into book order
  * and written as the same CSV tables the in-process engine writes, byte for byte ({@code results.csv},
- * {@code weights.csv}, {@code trades.csv} or {@code stress.csv}, {@code portfolios.jsonl}), as Parquet
+ * {@code weights.csv}, {@code trades.csv} or {@code stress.csv}), as Parquet
  * ({@code results.parquet}, {@code weights.parquet}) and a {@code summary.json}.
  *
  * <p>Rows travel between JVMs as plain serializable objects and Spark {@link Row}s with an explicit schema, never as
@@ -155,14 +154,13 @@ public final class BookOnSpark {
                 plan::file, true));
     }
 
-    /** The schema of the computed rows: position, status, the CSV texts, the JSON line and the typed results. */
+    /** The schema of the computed rows: position, the CSV texts, the typed results and the weights. */
     static StructType schema() {
         List<StructField> f = new ArrayList<>();
         f.add(DataTypes.createStructField("index", DataTypes.LongType, false));
         f.add(DataTypes.createStructField("_results", DataTypes.StringType, false));
         f.add(DataTypes.createStructField("_weights", DataTypes.StringType, false));
         f.add(DataTypes.createStructField("_extra", DataTypes.StringType, false));
-        f.add(DataTypes.createStructField("_json", DataTypes.StringType, true));
         for (BookTables.Column c : BookTables.RESULTS.columns()) {
             f.add(DataTypes.createStructField(c.name(), type(c.kind()), true));
         }
@@ -189,7 +187,6 @@ public final class BookOnSpark {
         v.add(chop(r.resultLine()));
         v.add(chop(r.weightLines()));
         v.add(chop(r.extraLines()));
-        v.add(r.json());
         for (Object o : r.values()) {
             v.add(o instanceof Double d && d.isNaN() ? null : o);
         }
@@ -247,10 +244,6 @@ public final class BookOnSpark {
                 csv(sorted, "_weights", BookTables.WEIGHTS.header(), out, BookTables.WEIGHTS.file(), fs, files);
                 for (BookTables.Table t : BookTables.extra(spec.job())) {
                     csv(sorted, "_extra", t.header(), out, t.file(), fs, files);
-                }
-                if (spec.json()) {
-                    csv(sorted.filter(functions.col("_json").isNotNull()), "_json", "", out, "portfolios.jsonl", fs,
-                            files);
                 }
             }
             if (options.parquet()) {
@@ -350,7 +343,7 @@ public final class BookOnSpark {
 
     private static void writeSummary(FileSystem fs, Path target, BookSpec spec, Book book, BookSummary summary,
                                      List<String> files, int partitions) throws IOException {
-        var o = ResultJson.object();
+        var o = new com.fasterxml.jackson.databind.ObjectMapper().createObjectNode();
         o.put("status", summary.worst().label());
         o.put("job", spec.job().label());
         var b = o.putObject("book");
@@ -362,11 +355,12 @@ public final class BookOnSpark {
             c.put(s.label(), summary.count(s));
         }
         o.put("partitions", partitions);
-        o.set("files", ResultJson.strings(files));
+        var f = o.putArray("files");
+        files.forEach(f::add);
         o.put("caution", Caution.TEXT);
-        try (OutputStream out = fs.create(target, true);
-             java.io.Writer w = new java.io.OutputStreamWriter(out, StandardCharsets.UTF_8)) {
-            ResultJson.write(o, w);
+        try (OutputStream out = fs.create(target, true)) {
+            out.write((new com.fasterxml.jackson.databind.ObjectMapper().writerWithDefaultPrettyPrinter()
+                    .writeValueAsString(o) + "\n").getBytes(StandardCharsets.UTF_8));
         }
     }
 

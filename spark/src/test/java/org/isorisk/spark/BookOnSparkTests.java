@@ -4,8 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -62,7 +60,7 @@ class BookOnSparkTests {
     @Test
     void everyJobWritesTheInProcessTablesRowForRow() throws IOException {
         for (Job job : Job.values()) {
-            BookSpec spec = sample(job, true);
+            BookSpec spec = sample(job, false);
             BookOnSpark.Outcome o = BookOnSpark.run(spark, spec, dir.toString(), new BookOnSpark.Options(3, true,
                     false));
             InProcess.Tables expected = InProcess.run(spec);
@@ -71,12 +69,6 @@ class BookOnSparkTests {
             if (job != Job.SOLVE) {
                 String extra = job == Job.REBALANCE ? "trades.csv" : "stress.csv";
                 assertEquals(expected.extra(), read(extra), job.label());
-            }
-            // per-portfolio JSON: the same objects but for each one's own timing
-            List<String> lines = Files.readAllLines(dir.resolve("portfolios.jsonl"));
-            assertEquals(expected.json().size(), lines.size());
-            for (int k = 0; k < lines.size(); k++) {
-                assertEquals(withoutTiming(expected.json().get(k)), withoutTiming(lines.get(k)));
             }
             assertEquals(10, o.summary().count(Status.OPTIMAL));
             CsvTable t = Csv.parse("results.csv", "results", read("results.csv"));
@@ -161,22 +153,18 @@ class BookOnSparkTests {
     @Test
     void theArgumentsAreBatchsOptions() {
         Arguments a = Arguments.parse(new String[] {"--book", "hdfs://c/b.csv", "--job", "rebalance", "--out-dir",
-                "hdfs://c/out", "--assumption-sets", "hdfs://c/sets.csv", "--policy", "p.yaml", "--json",
+                "hdfs://c/out", "--assumption-sets", "hdfs://c/sets.csv", "--policy", "p.yaml",
                 "--partitions", "64", "--format", "parquet", "--units", "percent"});
         assertEquals(Job.REBALANCE, a.spec().job());
         assertEquals("hdfs://c/sets.csv", a.spec().assumptionSets());
         assertEquals(Units.PERCENT, a.spec().units());
         assertEquals(new BookOnSpark.Options(64, false, true), a.options());
-        assertTrue(a.spec().json());
+        assertTrue(assertThrows(InputException.class, () -> Arguments.parse(new String[] {"--book", "b", "--job",
+                "solve", "--out-dir", "o", "--json"})).getMessage().startsWith("--json (each portfolio's JSON) is "
+                + "written by isorisk batch"));
         assertEquals("--job 'optimise' is not known; use solve, rebalance or stress; fix: " + Arguments.USAGE,
                 assertThrows(InputException.class, () -> Arguments.parse(new String[] {"--book", "b", "--job",
                         "optimise", "--out-dir", "o"})).getMessage());
-    }
-
-    private static String withoutTiming(String json) throws IOException {
-        ObjectNode o = (ObjectNode) new ObjectMapper().readTree(json);
-        o.remove("timing_ms");
-        return o.toString();
     }
 
     static List<String> lines(String text) {

@@ -34,9 +34,6 @@ final class InProcess {
                 r.append(p.resultLine());
                 w.append(p.weightLines());
                 x.append(p.extraLines());
-                if (p.json() != null) {
-                    json.add(p.json());
-                }
             }
         }, null, null);
         return new Tables(r.toString(), w.toString(), x.toString(), json);

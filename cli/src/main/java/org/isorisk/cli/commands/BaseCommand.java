@@ -5,13 +5,12 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
-import org.isorisk.cli.ExitCode;
-import org.isorisk.cli.Reporting;
+import org.isorisk.cli.files.AtomicWrite;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.render.Rendered;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.ResultJson;
+import picocli.CommandLine.IVersionProvider;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Model.OptionSpec;
 import picocli.CommandLine.Spec;
@@ -43,6 +42,20 @@ public abstract class BaseCommand implements Callable<Integer>, Reporting {
         return option != null && option.getValue() instanceof Format f ? f : Format.TABLE;
     }
 
+    /**
+     * isorisk's version as the root command's version provider gives it (without the leading "isorisk "), for
+     * records of a run; {@code (unknown version)} when there is none.
+     */
+    protected String toolVersion() {
+        IVersionProvider provider = spec == null ? null : spec.root().versionProvider();
+        try {
+            String[] v = provider == null ? new String[0] : provider.getVersion();
+            return v.length == 0 ? "(unknown version)" : v[0].replaceFirst("^isorisk ", "");
+        } catch (Exception e) {
+            return "(unknown version)";
+        }
+    }
+
     @Override
     public boolean jsonOutput() {
         return format() == Format.JSON;
@@ -70,7 +83,7 @@ public abstract class BaseCommand implements Callable<Integer>, Reporting {
     protected void emit(Rendered r, Optional<Path> file) {
         Format f = format();
         String text = switch (f) {
-            case JSON -> AtomicWrite.text(w -> ResultJson.write(ResultJson.finish(r.json(), elapsedMillis()), w));
+            case JSON -> ResultJson.text(ResultJson.finish(r.json(), elapsedMillis()));
             case CSV -> r.csv();
             case TABLE -> r.table();
         };

@@ -10,14 +10,16 @@ import java.util.Locale;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.atomic.AtomicInteger;
-import org.isorisk.cli.ExitCode;
-import org.isorisk.cli.ProgressLine;
+import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.cli.files.BatchFolder;
+import org.isorisk.cli.json.BookJson;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.cli.options.Fingerprint;
 import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.PolicyOption;
+import org.isorisk.cli.render.ProgressLine;
 import org.isorisk.cli.render.Text;
 import org.isorisk.engine.batch.BatchSettings;
 import org.isorisk.engine.book.Book;
@@ -29,15 +31,13 @@ import org.isorisk.engine.book.BookTables;
 import org.isorisk.engine.book.Job;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.AtomicWrite;
 import org.isorisk.engine.io.InputFile;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.model.Status;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
+import picocli.CommandLine;
 
 /**
  * {@code isorisk batch}: one job ({@code solve}, {@code rebalance} or {@code stress}) for every portfolio of a book,
@@ -164,7 +164,9 @@ public final class BatchCommand extends BaseCommand {
         long t0 = System.nanoTime();
         BookRunner.Outcome outcome;
         try (ProgressLine bar = new ProgressLine(err(), ProgressLine.stderrIsTerminal(), "batch")) {
-            outcome = BookRunner.run(b, bookJob, folder.committed(), pool,
+            java.util.function.Function<org.isorisk.engine.book.BookRow, org.isorisk.engine.book.PortfolioResult> work =
+                    json ? row -> BookJson.withJson(bookJob.apply(row), kind) : bookJob;
+            outcome = BookRunner.run(b, work, folder.committed(), pool,
                     new BatchSettings(n, BatchSettings.DEFAULT_BATCH, chunkSize, -1), folder::commit,
                     quiet ? null : bar, null);
         } catch (RuntimeException e) {

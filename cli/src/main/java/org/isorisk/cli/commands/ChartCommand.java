@@ -2,16 +2,16 @@ package org.isorisk.cli.commands;
 
 import java.nio.file.Path;
 import java.util.Locale;
+import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.cli.render.Text;
-import org.isorisk.engine.chart.ChartFormat;
-import org.isorisk.engine.chart.ChartSettings;
-import org.isorisk.engine.chart.Charts;
-import org.isorisk.engine.chart.Figure;
-import org.isorisk.engine.io.AtomicWrite;
-import picocli.CommandLine;
+import org.isorisk.notebooks.chart.ChartFormat;
+import org.isorisk.notebooks.chart.ChartSettings;
+import org.isorisk.notebooks.chart.Charts;
+import org.isorisk.notebooks.chart.Figure;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Spec;
+import picocli.CommandLine;
 
 /**
  * {@code isorisk chart KIND}: one committee chart into a file whose extension gives the format (png, svg, pdf).

@@ -9,14 +9,13 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.stream.Stream;
-import org.isorisk.cli.ExitCode;
+import org.isorisk.cli.files.PackFolder;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
+import org.isorisk.engine.io.Units;
 import org.isorisk.engine.io.UniverseFiles;
 import org.isorisk.engine.io.UniverseLoader;
-import org.isorisk.engine.io.Units;
-import org.isorisk.notebooks.folder.PackFolder;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 
@@ -67,7 +66,7 @@ public final class DemoCommand extends BaseCommand {
             PolicyOption policy = PolicyOption.of(Files.isRegularFile(dir.resolve("policy.yaml"))
                     ? dir.resolve("policy.yaml") : null);
             PackCommand.Made made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), src.packFile(),
-                    Units.DECIMAL, out, true, extra);
+                    Units.DECIMAL, out, true, extra, toolVersion());
             warn(made.warnings());
             out().print(made.summary());
             out().flush();

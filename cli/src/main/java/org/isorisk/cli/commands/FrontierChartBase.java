@@ -1,15 +1,10 @@
 package org.isorisk.cli.commands;
 
 import java.nio.file.Path;
-import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.ChartFileOptions;
 import org.isorisk.cli.options.Decimal;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.PolicyOption;
-import org.isorisk.engine.chart.AssetColours;
-import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartSettings;
-import org.isorisk.engine.chart.Figure;
 import org.isorisk.engine.frontier.Grid;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
@@ -23,6 +18,10 @@ import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.risk.RiskAnalysis;
 import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.solve.Allocator;
+import org.isorisk.notebooks.chart.AssetColours;
+import org.isorisk.notebooks.chart.ChartContext;
+import org.isorisk.notebooks.chart.ChartSettings;
+import org.isorisk.notebooks.chart.Figure;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 

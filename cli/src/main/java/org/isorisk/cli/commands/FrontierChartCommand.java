@@ -1,17 +1,17 @@
 package org.isorisk.cli.commands;
 
 import org.isorisk.cli.options.Decimal;
-import org.isorisk.engine.chart.AssetColours;
-import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartSettings;
-import org.isorisk.engine.chart.Charts;
-import org.isorisk.engine.chart.Figure;
-import org.isorisk.engine.chart.FrontierChartData;
-import org.isorisk.engine.chart.PortfolioPoint;
 import org.isorisk.engine.model.AllocationRequest;
 import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.solve.Allocator;
+import org.isorisk.notebooks.chart.AssetColours;
+import org.isorisk.notebooks.chart.ChartContext;
+import org.isorisk.notebooks.chart.ChartSettings;
+import org.isorisk.notebooks.chart.Charts;
+import org.isorisk.notebooks.chart.Figure;
+import org.isorisk.notebooks.chart.FrontierChartData;
+import org.isorisk.notebooks.chart.PortfolioPoint;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 

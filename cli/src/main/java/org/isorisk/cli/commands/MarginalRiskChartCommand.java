@@ -1,10 +1,10 @@
 package org.isorisk.cli.commands;
 
-import org.isorisk.engine.chart.AssetColours;
-import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartSettings;
-import org.isorisk.engine.chart.Charts;
-import org.isorisk.engine.chart.Figure;
+import org.isorisk.notebooks.chart.AssetColours;
+import org.isorisk.notebooks.chart.ChartContext;
+import org.isorisk.notebooks.chart.ChartSettings;
+import org.isorisk.notebooks.chart.Charts;
+import org.isorisk.notebooks.chart.Figure;
 import picocli.CommandLine.Command;
 
 /** {@code isorisk chart marginal-risk}: the return target's shadow price in volatility units against the target. */

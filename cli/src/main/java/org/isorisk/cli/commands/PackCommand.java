@@ -9,34 +9,34 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
-import org.isorisk.cli.ExitCode;
-import org.isorisk.cli.IsoriskCommand;
+import org.isorisk.cli.files.PackFiles;
+import org.isorisk.cli.files.PackFolder;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.PolicyOption;
+import org.isorisk.cli.usecase.PackAnalysis;
+import org.isorisk.cli.usecase.PackSpecReader;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
 import org.isorisk.engine.io.PortfolioReader;
 import org.isorisk.engine.io.ScenarioFile;
-import org.isorisk.engine.stress.Scenario;
 import org.isorisk.engine.io.SourceFile;
 import org.isorisk.engine.io.Units;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Policy;
 import org.isorisk.engine.rebalance.TradingLimits;
 import org.isorisk.engine.solve.Allocator;
+import org.isorisk.engine.stress.Scenario;
 import org.isorisk.notebooks.PackContent;
 import org.isorisk.notebooks.PackLayout;
-import org.isorisk.notebooks.folder.PackFiles;
-import org.isorisk.notebooks.folder.PackFolder;
-import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartSettings;
+import org.isorisk.notebooks.chart.ChartContext;
+import org.isorisk.notebooks.chart.ChartSettings;
 import org.isorisk.notebooks.pack.ChartMaker;
-import org.isorisk.notebooks.pack.EngineCharts;
-import org.isorisk.notebooks.pack.PackRunner;
+import org.isorisk.notebooks.pack.PackCharts;
+import org.isorisk.notebooks.pack.PackComposer;
+import org.isorisk.notebooks.pack.PackResults;
 import org.isorisk.notebooks.pack.PackSpec;
-import org.isorisk.notebooks.pack.PackSpecReader;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -44,7 +44,7 @@ import picocli.CommandLine.Option;
 /**
  * {@code isorisk pack}: the committee pack of a fund, from its input tables and a pack file, into one folder
  * (notebook, charts, CSV tables, copies of the inputs, manifest), written atomically. Reading and printing only:
- * the analysis is {@link PackRunner}'s, the folder {@link PackFolder}'s.
+ * the analyses are {@link PackAnalysis}'s, the layout {@link PackComposer}'s, the folder {@link PackFolder}'s.
  */
 @Command(name = "pack", mixinStandardHelpOptions = true, sortOptions = false,
         header = "Write a fund's investment committee pack (notebook, charts, tables, manifest) into one folder.",
@@ -84,7 +84,7 @@ public final class PackCommand extends BaseCommand {
     @Override
     protected ExitCode execute() {
         LoadedUniverse u = inputs.load(true);
-        Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of());
+        Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of(), toolVersion());
         warn(made.warnings());
         out().print(made.summary());
         out().flush();
@@ -111,9 +111,10 @@ public final class PackCommand extends BaseCommand {
      * Reads the policy, holdings and pack file, runs the analysis and writes the folder; shared with {@code demo}.
      *
      * @param extraInputs further files to record and copy (e.g. the demo's README), as role and path
+     * @param version     isorisk's version, for the manifest and the run record ({@link BaseCommand#toolVersion})
      */
     static Made make(LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile, Units units, Path out,
-                     boolean force, List<PackFolder.Input> extraInputs) {
+                     boolean force, List<PackFolder.Input> extraInputs, String version) {
         PackSpec spec = PackSpecReader.read(packFile);
         PolicyOption.Loaded loaded = policyOption.load(read);
         LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
@@ -122,7 +123,7 @@ public final class PackCommand extends BaseCommand {
         List<String> warnings = new ArrayList<>(u.warnings());
         Mandate mandate = loaded.mandate();
         Optional<Policy> pol = loaded.policy();
-        // the policy's trading limits shape the trade list (PackRunner: the full move when they restrict nothing)
+        // the policy's trading limits shape the trade list (PackAnalysis: the full move when they restrict nothing)
         TradingLimits trading = pol.map(TradingLimits::of).orElse(null);
         Optional<double[]> weights = Optional.empty();
         List<SourceFile> sources = new ArrayList<>(u.provenance().inputs());
@@ -140,7 +141,6 @@ public final class PackCommand extends BaseCommand {
         u.provenance().asOfDate().filter(d -> !d.equals(asOf)).ifPresent(d -> notes.add(
                 "The pack file's as-of date differs from the inputs' (" + d + "); the pack shows the pack file's."));
 
-        String version = version();
         OffsetDateTime now = OffsetDateTime.now(ZoneOffset.UTC).truncatedTo(ChronoUnit.SECONDS);
         PackFolder folder = new PackFolder(version, now);
         List<PackContent.InputFile> recorded = new ArrayList<>();
@@ -175,10 +175,12 @@ public final class PackCommand extends BaseCommand {
                 prov = prov.withInput(s); // the holdings too, so the charts' input hash covers every input
             }
         }
-        ChartMaker charts = new EngineCharts(ChartContext.of(prov, spec.fund()), ChartSettings.defaults());
-        PackRunner.Outcome o = PackRunner.run(new PackRunner.Request(u.universe(), mandate, spec, weights,
+        ChartMaker charts = new PackCharts(ChartContext.of(prov, spec.fund()), ChartSettings.defaults());
+        PackResults results = PackAnalysis.run(new PackAnalysis.Request(u.universe(), mandate, spec, weights,
+                scenarios, trading));
+        PackContent content = PackComposer.compose(results, new PackComposer.Request(
                 u.provenance().scenario() == null ? "" : "Inputs: " + u.provenance().scenario() + ".", version, now,
-                parameters, recorded, notes, scenarios, charts, trading));
+                parameters, recorded, notes, charts));
 
         com.fasterxml.jackson.databind.node.ObjectNode params = spec.toJson();
         params.put("policy", policy == null ? null : policy.getFileName().toString());
@@ -186,7 +188,7 @@ public final class PackCommand extends BaseCommand {
         params.put("units", units.label());
         params.put("force", force);
         folder.parameters(params);
-        PackFiles.addTo(folder, o.content());
+        PackFiles.addTo(folder, content);
         java.util.Set<String> copied = new java.util.HashSet<>();
         for (SourceFile s : sources) {
             copy(folder, s.role(), Path.of(s.path()), copied);
@@ -194,10 +196,10 @@ public final class PackCommand extends BaseCommand {
         for (PackFolder.Input in : more) {
             copy(folder, in.role(), in.path(), copied);
         }
-        String summary = summary(o.content(), out, notes);
+        String summary = summary(content, out, notes);
         folder.add("summary.txt", os -> os.write(summary.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
         PackFolder.Result r = folder.commit(out, force);
-        return new Made(r.folder(), o.content(), r.files().size(), summary, warnings);
+        return new Made(r.folder(), content, r.files().size(), summary, warnings);
     }
 
     /** A copy of an input under {@code inputs/}, by its file name (prefixed with its role if two names clash). */
@@ -213,14 +215,6 @@ public final class PackCommand extends BaseCommand {
     private static String safeName(Path file) {
         String n = file.getFileName().toString().replaceAll("[^a-zA-Z0-9._-]", "_");
         return n.isEmpty() || !Character.isLetterOrDigit(n.charAt(0)) ? "input_" + n : n;
-    }
-
-    private static String version() {
-        try {
-            return new IsoriskCommand.Version().getVersion()[0].replaceFirst("^isorisk ", "");
-        } catch (java.io.IOException e) {
-            return "(unknown version)";
-        }
     }
 
     /** The short terminal summary: fund, proposal, minimum variance, binding constraints, where the notebook is. */

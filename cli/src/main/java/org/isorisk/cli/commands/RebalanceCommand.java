@@ -8,7 +8,6 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
-import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.Decimal;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutputOptions;
@@ -26,10 +25,10 @@ import org.isorisk.engine.rebalance.RebalanceRequest;
 import org.isorisk.engine.rebalance.RebalanceResult;
 import org.isorisk.engine.rebalance.Rebalancer;
 import org.isorisk.engine.rebalance.TradingLimits;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
+import picocli.CommandLine;
 
 /** {@code isorisk rebalance}: today's holdings to a proposal under the policy and the trading limits. */
 @Command(name = "rebalance", mixinStandardHelpOptions = true, sortOptions = false,

@@ -3,7 +3,6 @@ package org.isorisk.cli.commands;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.render.RiskView;

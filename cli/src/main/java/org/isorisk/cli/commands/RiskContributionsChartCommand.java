@@ -1,19 +1,18 @@
 package org.isorisk.cli.commands;
 
 import java.nio.file.Path;
-import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.ChartFileOptions;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.engine.chart.AssetColours;
-import org.isorisk.engine.chart.ChartSettings;
-import org.isorisk.engine.chart.Charts;
-import org.isorisk.engine.chart.Figure;
-import org.isorisk.engine.chart.RiskShares;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
 import org.isorisk.engine.io.PortfolioReader;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.engine.risk.RiskAnalysis;
+import org.isorisk.notebooks.chart.AssetColours;
+import org.isorisk.notebooks.chart.ChartSettings;
+import org.isorisk.notebooks.chart.Charts;
+import org.isorisk.notebooks.chart.Figure;
+import org.isorisk.notebooks.chart.RiskShares;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;

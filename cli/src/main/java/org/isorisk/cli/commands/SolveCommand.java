@@ -5,7 +5,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
-import org.isorisk.cli.ExitCode;
 import org.isorisk.cli.options.Decimal;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutputOptions;
@@ -25,10 +24,10 @@ import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.risk.RiskAnalysis;
 import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.solve.Allocator;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
+import picocli.CommandLine;
 
 /** {@code isorisk solve}: one portfolio (minimum variance, a target return, or tangency) with its shadow prices. */
 @Command(name = "solve", mixinStandardHelpOptions = true, sortOptions = false,

@@ -17,13 +17,12 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Stream;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.batch.BatchRunner;
 import org.isorisk.engine.book.BookSummary;
 import org.isorisk.engine.book.BookTables;
 import org.isorisk.engine.book.PortfolioResult;
 import org.isorisk.engine.error.InputException;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Status;
 
 /**

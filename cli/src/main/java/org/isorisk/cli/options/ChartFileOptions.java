@@ -1,10 +1,10 @@
 package org.isorisk.cli.options;
 
 import java.nio.file.Path;
-import org.isorisk.engine.chart.ChartContext;
-import org.isorisk.engine.chart.ChartFormat;
-import org.isorisk.engine.chart.ChartSettings;
 import org.isorisk.engine.io.Provenance;
+import org.isorisk.notebooks.chart.ChartContext;
+import org.isorisk.notebooks.chart.ChartFormat;
+import org.isorisk.notebooks.chart.ChartSettings;
 import picocli.CommandLine.Option;
 
 /**

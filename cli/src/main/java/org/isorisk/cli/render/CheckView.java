@@ -2,11 +2,10 @@ package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.io.LoadedUniverse;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.risk.AssumptionSummary;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The result of {@code isorisk check}: the inputs are valid (else the command failed before), with what an
@@ -66,8 +65,7 @@ public record CheckView(LoadedUniverse inputs, AssumptionSummary summary) implem
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "check", inputs.provenance(), inputs.warnings());
             c.comment("smallest_eigenvalue", CsvWriter.number(summary.smallestEigenvalue()));
             c.comment("largest_eigenvalue", CsvWriter.number(summary.largestEigenvalue()));

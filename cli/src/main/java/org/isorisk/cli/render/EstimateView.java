@@ -4,13 +4,11 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.StringWriter;
 import java.nio.file.Path;
 import java.util.List;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.Issue;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
-import org.isorisk.engine.io.EstimateReport;
-import org.isorisk.engine.io.ResultJson;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The result of {@code isorisk estimate}: the data-quality report of the estimate and the files written.
@@ -55,8 +53,7 @@ public record EstimateView(Estimate estimate, Path outDir, List<String> files, d
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             c.comment("command", "estimate");
             c.comment("source", estimate.source());
             c.comment("method", EstimateReport.method(estimate));

@@ -4,11 +4,9 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.ArrayList;
 import java.util.List;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.explain.Explain;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.LoadedUniverse;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Corner;
 import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.MertonScalars;
@@ -16,6 +14,7 @@ import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.model.RejectedTarget;
 import org.isorisk.engine.model.Solution;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * A frontier for people, spreadsheets and scripts: the corner portfolios (when the method computes them), the
@@ -287,8 +286,7 @@ public record FrontierView(Frontier frontier, Method method, String policy, Load
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "frontier", inputs.provenance(), warnings);
             c.comment("method", method.label());
             c.comment("policy", policy == null ? "none (budget only; short positions allowed)" : policy);

@@ -2,15 +2,14 @@ package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
+import org.isorisk.cli.json.RebalanceStressJson;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.io.Provenance;
-import org.isorisk.engine.io.RebalanceStressJson;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Multiplier;
 import org.isorisk.engine.rebalance.Breach;
 import org.isorisk.engine.rebalance.RebalanceResult;
 import org.isorisk.engine.rebalance.Trade;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * A rebalancing proposal: breaches of the policy today first, then the trade list, totals, risk and the shadow
@@ -119,8 +118,7 @@ public record RebalanceView(RebalanceResult result, Provenance provenance, List<
     @Override
     public String csv() {
         RebalanceResult r = result;
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "rebalance", provenance, warnings);
             c.comment("objective", r.objective());
             c.comment("turnover_convention", RebalanceResult.TURNOVER_CONVENTION);

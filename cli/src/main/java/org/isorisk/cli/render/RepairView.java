@@ -4,12 +4,10 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.StringWriter;
 import java.nio.file.Path;
 import java.util.List;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.estimate.RepairResult;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
-import org.isorisk.engine.io.RepairReport;
-import org.isorisk.engine.io.ResultJson;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The result of {@code isorisk check --repair}: what the repair changed, and the files written (none when the
@@ -49,8 +47,7 @@ public record RepairView(RepairResult result, String source, Path outDir, List<S
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             c.comment("command", "check --repair");
             c.comment("source", source);
             c.comment("changed", Boolean.toString(result.changed()));

@@ -3,13 +3,12 @@ package org.isorisk.cli.render;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import java.util.OptionalDouble;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.io.Provenance;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.risk.Contribution;
 import org.isorisk.engine.risk.RiskDecomposition;
 import org.isorisk.engine.risk.TrackingError;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * The risk decomposition of a portfolio, optionally against a benchmark.
@@ -108,8 +107,7 @@ public record RiskView(String label, RiskDecomposition risk, OptionalDouble mark
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "risk", provenance, warnings);
             c.comment("portfolio", label);
             c.comment("volatility", CsvWriter.number(risk.volatility()));

@@ -3,8 +3,8 @@ package org.isorisk.cli.render;
 import java.io.IOException;
 import java.util.List;
 import org.isorisk.engine.explain.Caution;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.Provenance;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /** Pieces that several views print the same way: inputs, warnings, notes. */
 final class Sections {

@@ -3,11 +3,9 @@ package org.isorisk.cli.render;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import java.util.Map;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.explain.Explain;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
 import org.isorisk.engine.io.LoadedUniverse;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.model.Certificate;
 import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Multiplier;
@@ -15,6 +13,7 @@ import org.isorisk.engine.model.Objective;
 import org.isorisk.engine.model.Solution;
 import org.isorisk.engine.risk.Contribution;
 import org.isorisk.engine.risk.RiskDecomposition;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * A solved portfolio for people, spreadsheets and scripts.
@@ -160,8 +159,7 @@ public record SolveView(Solution solution, RiskDecomposition risk, Objective obj
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "solve", inputs.provenance(), warnings);
             c.comment("objective", title());
             c.comment("status", solution.status().label());

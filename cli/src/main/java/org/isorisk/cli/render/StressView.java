@@ -2,16 +2,15 @@ package org.isorisk.cli.render;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
-import org.isorisk.engine.io.AtomicWrite;
-import org.isorisk.engine.io.CsvWriter;
+import org.isorisk.cli.json.RebalanceStressJson;
+import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.io.Provenance;
-import org.isorisk.engine.io.RebalanceStressJson;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.stress.BindingChange;
 import org.isorisk.engine.stress.ScenarioPoint;
 import org.isorisk.engine.stress.ScenarioResult;
 import org.isorisk.engine.stress.StressResult;
 import org.isorisk.engine.stress.TargetPoint;
+import org.isorisk.notebooks.report.CsvWriter;
 
 /**
  * A stress run: the target sweep under the base assumptions, then one block per scenario.
@@ -97,8 +96,7 @@ public record StressView(StressResult result, Provenance provenance, List<String
 
     @Override
     public String csv() {
-        return AtomicWrite.text(w -> {
-            CsvWriter c = new CsvWriter(w);
+        return CsvWriter.text(c -> {
             Sections.csvHeader(c, "stress", provenance, warnings);
             for (String n : result.notes()) {
                 c.comment("note", n);

@@ -1,6 +1,8 @@
 /**
- * Formatting of engine results for people (tables), spreadsheets (CSV) and scripts (JSON, in the shapes of
- * {@link org.isorisk.engine.io.ResultJson}), locale-independent, each ending with the caution. No arithmetic here:
- * every number printed comes from an engine value.
+ * Views of single commands' results for people (tables), spreadsheets (CSV, through
+ * {@code notebooks.report.CsvWriter}) and scripts (JSON, in the shapes of {@link org.isorisk.cli.json.ResultJson}),
+ * locale-independent, each ending with the caution; the reports of {@code estimate}
+ * ({@link org.isorisk.cli.render.EstimateReport}) and of the repair ({@link org.isorisk.cli.render.RepairReport}).
+ * No arithmetic here: every number printed comes from an engine value.
  */
 package org.isorisk.cli.render;

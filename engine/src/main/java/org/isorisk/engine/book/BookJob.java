@@ -1,6 +1,5 @@
 package org.isorisk.engine.book;
 
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -15,15 +14,13 @@ import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.error.IsoriskException;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.explain.Explain;
-import org.isorisk.engine.io.CsvCells;
+import org.isorisk.engine.book.CsvCells;
 import org.isorisk.engine.io.InputFile;
 import org.isorisk.engine.io.Names;
 import org.isorisk.engine.io.NumberText;
 import org.isorisk.engine.io.PolicyReader;
 import org.isorisk.engine.io.PortfolioFile;
 import org.isorisk.engine.io.PortfolioReader;
-import org.isorisk.engine.io.RebalanceStressJson;
-import org.isorisk.engine.io.ResultJson;
 import org.isorisk.engine.io.ScenarioFile;
 import org.isorisk.engine.io.UniverseLoader;
 import org.isorisk.engine.linalg.Workers;
@@ -233,12 +230,12 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
                 case STRESS -> stress(w);
             };
         } catch (InputException e) {
-            return failed(w, Status.INVALID_INPUT, e.getMessage(), null);
+            return failed(w, Status.INVALID_INPUT, e.getMessage(), e);
         } catch (NoSolutionException e) {
             return failed(w, e.reason() == NoSolutionException.Reason.NOT_CONVERGED ? Status.NOT_SOLVED
                     : Status.INFEASIBLE, e.getMessage(), e);
         } catch (IsoriskException e) {
-            return failed(w, Status.INVALID_INPUT, e.getMessage(), null);
+            return failed(w, Status.INVALID_INPUT, e.getMessage(), e);
         } catch (RuntimeException e) {
             return failed(w, Status.NOT_SOLVED, BUG + e, null);
         }
@@ -481,8 +478,7 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
             }
             w.v[TRADES] = traded;
         }
-        ObjectNode json = spec.json() ? ResultJson.solution(s) : null;
-        return done(w, weightRows(w, s), List.of(), json);
+        return done(w, weightRows(w, s), List.of(), s);
     }
 
     /** The figures of a solution in the results row. */
@@ -714,8 +710,7 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
             }
         }
         w.v[TRADES] = traded;
-        return done(w, weightRows(w, s), List.of(new Rows(values, text.toString())),
-                spec.json() ? RebalanceStressJson.rebalance(r) : null);
+        return done(w, weightRows(w, s), List.of(new Rows(values, text.toString())), r);
     }
 
     // ------------------------------------------------------------------ stress
@@ -753,14 +748,11 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
         }
         Rows extra = new Rows(values, text.toString());
         TargetPoint base = r.base().points().get(0);
-        ObjectNode json = spec.json() ? RebalanceStressJson.stress(r) : null;
         if (!base.feasible()) {
-            w.v[STATUS] = Status.INFEASIBLE.label();
-            return result(w, Status.INFEASIBLE, oneLine(base.reason()), Rows.NONE, List.of(extra),
-                    json != null ? json : failureJson(w, Status.INFEASIBLE, base.reason(), null));
+            return result(w, Status.INFEASIBLE, oneLine(base.reason()), Rows.NONE, List.of(extra), r);
         }
         solutionValues(w, base.solution());
-        return done(w, weightRows(w, base.solution()), List.of(extra), json);
+        return done(w, weightRows(w, base.solution()), List.of(extra), r);
     }
 
     /** The scenarios read against a set's assets and a policy's groups, once per policy file and set. */
@@ -782,17 +774,16 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
 
     // ------------------------------------------------------------------ results
 
-    private PortfolioResult done(Work w, Rows weights, List<Rows> extra, ObjectNode json) {
-        return result(w, Status.OPTIMAL, "", weights, extra, json);
+    private PortfolioResult done(Work w, Rows weights, List<Rows> extra, Object detail) {
+        return result(w, Status.OPTIMAL, "", weights, extra, detail);
     }
 
-    private PortfolioResult failed(Work w, Status status, String message, NoSolutionException e) {
-        String msg = oneLine(message);
-        return result(w, status, msg, Rows.NONE, List.of(), spec.json() ? failureJson(w, status, msg, e) : null);
+    private PortfolioResult failed(Work w, Status status, String message, IsoriskException e) {
+        return result(w, status, oneLine(message), Rows.NONE, List.of(), e);
     }
 
     private PortfolioResult result(Work w, Status status, String message, Rows weights, List<Rows> extra,
-                                   ObjectNode json) {
+                                   Object detail) {
         w.v[STATUS] = status.label();
         w.v[MESSAGE] = message;
         if (!w.warnings.isEmpty()) {
@@ -804,45 +795,9 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
             extraValues.addAll(r.values());
             extraText.append(r.text());
         }
-        String line = null;
-        if (json != null) {
-            ObjectNode o = ResultJson.object();
-            o.put("row", w.row.row());
-            o.put("id", w.id);
-            o.put("assumptions", w.setName);
-            if (w.policyLabel != null) {
-                o.put("policy", w.policyLabel);
-            }
-            o.put("job", spec.job().label());
-            json.fields().forEachRemaining(e -> {
-                if (!o.has(e.getKey())) {
-                    o.set(e.getKey(), e.getValue());
-                }
-            });
-            if (!w.warnings.isEmpty()) {
-                o.set("warnings", ResultJson.strings(w.warnings));
-            }
-            ResultJson.finish(o, (System.nanoTime() - w.started) / 1e6);
-            line = o.toString();
-        }
         return new PortfolioResult(w.row.index(), w.row.row(), w.id, status, message, w.v, weights.values(),
-                extraValues, new String[] {R.line(w.v), weights.text(), extraText.toString()}, line);
-    }
-
-    private static ObjectNode failureJson(Work w, Status status, String message, NoSolutionException e) {
-        ObjectNode o = ResultJson.object();
-        o.put("status", status.label());
-        o.put("error", oneLine(message));
-        if (e != null) {
-            o.put("reason", e.reason().name().toLowerCase(Locale.ROOT).replace('_', '-'));
-            o.set("constraints", ResultJson.strings(e.constraints()));
-            e.achievableReturns().ifPresent(r -> {
-                ObjectNode range = o.putObject("range");
-                ResultJson.number(range, "min", r[0]);
-                ResultJson.number(range, "max", r[1]);
-            });
-        }
-        return o;
+                extraValues, new String[] {R.line(w.v), weights.text(), extraText.toString()},
+                spec.json() ? detail : null, (System.nanoTime() - w.started) / 1e6, null);
     }
 
     private static String oneLine(String s) {

@@ -30,6 +30,8 @@ public final class BookRunner {
      * Runs the job on the book's rows from position {@code skip} on (zero when starting afresh; the number of rows
      * already committed when resuming).
      *
+     * @param job      a {@link BookJob}, or a function that wraps one (e.g. to render each result's JSON on the same
+     *                 thread)
      * @param executor the caller's threads; each row runs on one of them alone (see {@link BookJob}); null to run on
      *                 the calling thread
      * @param settings batch and chunk sizes and the number of threads of {@code executor}; its total is set here
@@ -37,7 +39,8 @@ public final class BookRunner {
      * @param progress told after each batch, on the calling thread; null for none
      * @param cancel   checked before each batch starts; null for none
      */
-    public static Outcome run(Book book, BookJob job, long skip, Executor executor, BatchSettings settings,
+    public static Outcome run(Book book, java.util.function.Function<BookRow, PortfolioResult> job, long skip,
+                              Executor executor, BatchSettings settings,
                               BatchRunner.Sink<PortfolioResult> sink, Progress.Listener progress,
                               Cancellation cancel) {
         try (Book.Rows rows = book.rows()) {

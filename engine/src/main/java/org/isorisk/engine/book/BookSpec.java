@@ -17,7 +17,8 @@ import org.isorisk.engine.io.Units;
  * @param policy          the shared policy for rows whose {@code policy} cell is blank; null when none
  * @param scenarios       the stress scenarios (the stress job); null when none
  * @param units           units of the numbers in the files and in the book
- * @param json            true to render each portfolio's JSON object as well
+ * @param json            true to keep what the engine returned with each result, for the caller to render the
+ *                        single command's JSON of each portfolio
  */
 public record BookSpec(Job job, String book, String expectedReturns, String covariance, String volatilities,
                        String correlation, String assumptionSets, String policy, String scenarios, Units units,

@@ -2,7 +2,7 @@ package org.isorisk.engine.book;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.isorisk.engine.io.CsvCells;
+import org.isorisk.engine.book.CsvCells;
 
 /**
  * The tables a book run writes, with their columns and types, and the text of their CSV rows, so that every engine

@@ -17,13 +17,23 @@ import org.isorisk.engine.model.Status;
  * @param weights rows of {@link BookTables#WEIGHTS} (none when there is no solution)
  * @param extra   rows of the job's extra table ({@link BookTables#extra}); none when there is none
  * @param text    the CSV text of the results row, the weights rows and the extra rows, in that order
- * @param json    the portfolio's JSON object on one line, or null when not asked for
+ * @param detail  what the engine returned, for a renderer of the single command's JSON (a {@code Solution}, a
+ *                {@code RebalanceResult}, a {@code StressResult}, or the {@code IsoriskException} of a failure); null
+ *                unless the job was asked to keep it
+ * @param millis  the time the row took, milliseconds
+ * @param json    the portfolio's JSON object on one line, set by the caller's renderer ({@link #withJson}); null
  */
 public record PortfolioResult(long index, int row, String id, Status status, String message, Object[] values,
-                              List<Object[]> weights, List<Object[]> extra, String[] text, String json) {
+                              List<Object[]> weights, List<Object[]> extra, String[] text, Object detail, double millis,
+                              String json) {
     public PortfolioResult {
         weights = List.copyOf(weights);
         extra = List.copyOf(extra);
+    }
+
+    /** The same result with its JSON line, and without the detail it was rendered from (memory stays flat). */
+    public PortfolioResult withJson(String line) {
+        return new PortfolioResult(index, row, id, status, message, values, weights, extra, text, null, millis, line);
     }
 
     /** The CSV text of its results row (with its line end). */

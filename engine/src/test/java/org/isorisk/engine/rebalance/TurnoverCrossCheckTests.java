@@ -22,17 +22,19 @@ import org.junit.jupiter.api.Test;
 
 /**
  * The turnover-limited rebalance against an independent solver: cvxopt's interior-point QP (Debian's
- * python3-cvxopt) on its own formulation with (w, b, s), through scripts/check_turnover_limited_rebalance_with_cvxopt.py.
+ * python3-cvxopt) on its own formulation with (w, b, s), through
+ * {@code src/test/scripts/check_turnover_limited_rebalance_with_cvxopt.py}.
  */
 class TurnoverCrossCheckTests {
 
-    static final File SCRIPT = new File("../scripts/check_turnover_limited_rebalance_with_cvxopt.py");
+    static final File SCRIPT = org.isorisk.engine.ExternalTools.scripts()
+            .resolve("check_turnover_limited_rebalance_with_cvxopt.py").toFile();
     static final String PYTHON = "/usr/bin/python3";
 
     @Test
     void theTurnoverLimitedProposalMatchesCvxopt() throws Exception {
         Assumptions.assumeTrue(new File(PYTHON).canExecute(), "skipped: " + PYTHON + " is not installed");
-        Assumptions.assumeTrue(SCRIPT.isFile(), "skipped: " + SCRIPT + " not found");
+        assertTrue(SCRIPT.isFile(), SCRIPT + " not found: it lives beside the other reference scripts");
         int binding = 0;
         for (long seed = 1; seed <= 4; seed++) {
             int n = 7;

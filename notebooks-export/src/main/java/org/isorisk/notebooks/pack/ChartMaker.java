@@ -4,7 +4,7 @@ import java.util.List;
 import org.isorisk.notebooks.PackContent;
 
 /**
- * Draws the pack's charts from its results. The pack runner calls it once with everything a chart may need;
+ * Draws the pack's charts from its results. {@link PackComposer} calls it once with everything a chart may need;
  * it returns the charts it drew (PNG, SVG and, when asked, PDF), named and placed by kind.
  */
 @FunctionalInterface

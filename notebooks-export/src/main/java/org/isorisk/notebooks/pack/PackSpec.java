@@ -9,8 +9,8 @@ import java.util.Set;
 import org.isorisk.engine.error.InputException;
 
 /**
- * What a committee pack shows, as read from the pack file ({@link PackSpecReader}): the fund, the targets, the
- * proposal, the charts and their formats. Numbers are decimals (0.055 is 5.5 %), annualised.
+ * What a committee pack shows, as read from the pack file (by the command line's pack use case): the fund, the
+ * targets, the proposal, the charts and their formats. Numbers are decimals (0.055 is 5.5 %), annualised.
  *
  * @param fund           the fund's name, as the title shows it
  * @param currency       the currency the fund reports in (e.g. GBP), shown in the title and on amounts
@@ -104,7 +104,8 @@ public record PackSpec(String fund, String currency, String note, LocalDate asOf
             return key;
         }
 
-        static Optional<ChartChoice> of(String key) {
+        /** The chart of this name in the pack file, if any. */
+        public static Optional<ChartChoice> of(String key) {
             for (ChartChoice c : values()) {
                 if (c.key.equals(key)) {
                     return Optional.of(c);
@@ -128,7 +129,8 @@ public record PackSpec(String fund, String currency, String note, LocalDate asOf
             return extension;
         }
 
-        static Optional<ChartFormat> of(String key) {
+        /** The format of this file extension in the pack file, if any. */
+        public static Optional<ChartFormat> of(String key) {
             for (ChartFormat f : values()) {
                 if (f.extension.equals(key)) {
                     return Optional.of(f);
