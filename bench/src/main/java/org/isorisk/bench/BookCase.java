@@ -243,7 +243,7 @@ final class BookCase implements BenchCase {
         double wall = (System.nanoTime() - t0) / 1e9;
         JsonNode s = new ObjectMapper().readTree(outDir.resolve("summary.json").toFile());
         Map<String, Long> counts = new java.util.LinkedHashMap<>();
-        s.get("counts").fields().forEachRemaining(e -> counts.put(e.getKey(), e.getValue().asLong()));
+        s.get("counts").properties().forEach(e -> counts.put(e.getKey(), e.getValue().asLong()));
         return new Run(code, wall, s.get("timing_ms").get("run").asDouble() / 1000,
                 s.get("portfolios_per_second").asDouble(), counts);
     }
