@@ -112,6 +112,8 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
     private final Map<String, Object> policies = new ConcurrentHashMap<>();
     private final Map<String, Object> holdingFiles = new ConcurrentHashMap<>();
     private final Map<String, Object> scenarioLists = new ConcurrentHashMap<>();
+    /** Each set's asset names as CSV text cells, rendered once (every weights row repeats them). */
+    private final Map<String, String[]> assetCells = new ConcurrentHashMap<>();
 
     private BookJob(BookSpec spec, BookColumns columns, InputFile book, AssumptionSets sets, InputFile sharedPolicy,
                     InputFile scenarios, boolean keepValues) {
@@ -522,10 +524,16 @@ public final class BookJob implements Function<BookRow, PortfolioResult> {
         StringBuilder text = new StringBuilder(assets.size() * 40);
         List<Object[]> values = keepValues ? new ArrayList<>(assets.size()) : List.of();
         String idCell = CsvCells.text(w.id);
+        String[] cells = assetCells.computeIfAbsent(w.set.name(), k -> {
+            String[] c = new String[assets.size()];
+            for (int i = 0; i < c.length; i++) {
+                c[i] = CsvCells.text(assets.get(i));
+            }
+            return c;
+        });
         for (int i = 0; i < assets.size(); i++) {
             double x = s.weight(i);
-            text.append(idCell).append(',').append(CsvCells.text(assets.get(i))).append(',')
-                    .append(CsvCells.number(x)).append('\n');
+            text.append(idCell).append(',').append(cells[i]).append(',').append(CsvCells.number(x)).append('\n');
             if (keepValues) {
                 values.add(new Object[] {w.id, assets.get(i), x});
             }

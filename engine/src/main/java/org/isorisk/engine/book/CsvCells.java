@@ -80,11 +80,13 @@ public final class CsvCells {
      * rest of an unquoted line); quotes inside are doubled.
      */
     public static String quote(String s) {
-        if (s.indexOf(',') >= 0 || s.indexOf('"') >= 0 || s.indexOf('\n') >= 0 || s.indexOf('\r') >= 0
-                || s.indexOf('#') >= 0 || !s.equals(s.strip())) {
-            return '"' + s.replace("\"", "\"\"") + '"';
+        int n = s.length();
+        boolean quote = n > 0 && (Character.isWhitespace(s.charAt(0)) || Character.isWhitespace(s.charAt(n - 1)));
+        for (int i = 0; i < n && !quote; i++) {
+            char c = s.charAt(i);
+            quote = c == ',' || c == '"' || c == '\n' || c == '\r' || c == '#';
         }
-        return s;
+        return quote ? '"' + s.replace("\"", "\"\"") + '"' : s;
     }
 
     /** The formula guard on one text cell (see the class comment); other text is returned as it is. */

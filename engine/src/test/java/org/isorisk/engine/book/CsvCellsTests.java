@@ -60,6 +60,23 @@ class CsvCellsTests {
     }
 
     @Test
+    void quotingIsTheCsvWritersRuleOnAnyText() {
+        // the rule as the one CSV writer first wrote it: a comma, quote, line break or # anywhere, or blanks around
+        java.util.function.Function<String, String> rule = t -> t.indexOf(',') >= 0 || t.indexOf('"') >= 0
+                || t.indexOf('\n') >= 0 || t.indexOf('\r') >= 0 || t.indexOf('#') >= 0 || !t.equals(t.strip())
+                ? '"' + t.replace("\"", "\"\"") + '"' : t;
+        SplittableRandom r = new SplittableRandom(11);
+        String alphabet = "ab ,\"\n\r#\t\u00a0\u2003x=-";
+        for (int k = 0; k < 200_000; k++) {
+            StringBuilder b = new StringBuilder();
+            for (int c = r.nextInt(6); c > 0; c--) {
+                b.append(alphabet.charAt(r.nextInt(alphabet.length())));
+            }
+            assertEquals(rule.apply(b.toString()), CsvCells.quote(b.toString()), b.toString());
+        }
+    }
+
+    @Test
     void textIsQuotedWhenACsvReaderWouldOtherwiseSplitOrSkipIt() {
         assertEquals("Cash", CsvCells.quote("Cash"));
         assertEquals("\"a,b\"", CsvCells.quote("a,b"));
