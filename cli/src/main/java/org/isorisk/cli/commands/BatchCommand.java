@@ -18,7 +18,6 @@ import org.isorisk.cli.options.Fingerprint;
 import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.options.InputOptions;
-import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.ProgressLine;
 import org.isorisk.cli.render.Text;
 import org.isorisk.engine.batch.BatchSettings;
@@ -76,8 +75,12 @@ public final class BatchCommand extends BaseCommand {
                     + "covariance (paths relative to this file).")
     Path assumptionSets;
 
-    @Mixin
-    PolicyOption policyOption;
+    // Not PolicyOption's mixin: here a policy is shared by the rows whose policy cell is blank; a row without any
+    // policy fails instead of running under the budget alone.
+    @Option(names = "--policy", paramLabel = "FILE",
+            description = "Shared policy (YAML, as for 'isorisk solve') for the rows whose policy cell is blank; a row "
+                    + "with neither fails.")
+    Path policy;
 
     @Option(names = "--scenarios", paramLabel = "FILE",
             description = "Stress scenarios (YAML, as for 'isorisk stress'); the stress job runs each row's target "
@@ -129,7 +132,6 @@ public final class BatchCommand extends BaseCommand {
         }
         Book b = Book.scan(InputFile.of(book));
         warn(b.warnings());
-        Path policy = policyOption.path().orElse(null);
         BookSpec bookSpec = new BookSpec(kind, book.toString(), text(inputs.expectedReturns().orElse(null)),
                 text(inputs.covariance().orElse(null)), text(inputs.volatilities().orElse(null)),
                 text(inputs.correlation().orElse(null)), text(assumptionSets), text(policy), text(scenarios),
@@ -217,6 +219,7 @@ public final class BatchCommand extends BaseCommand {
         ObjectNode o = ResultJson.object();
         o.put("status", total.worst().label());
         o.put("job", kind.label());
+        inputs.asOf().ifPresent(d -> o.put("as_of", d));
         ObjectNode bk = o.putObject("book");
         bk.put("name", InputFile.of(book).name());
         bk.put("sha256", b.sha256());
