@@ -97,7 +97,7 @@ public final class CheckCommand extends BaseCommand {
         if (r.changed()) {
             files().folder(outDir, dir -> written.addAll(AssumptionFiles.repair(dir, r, m.source())));
         }
-        emit(new RepairView(r, m.source(), outDir, written), Optional.empty());
+        emit(new RepairView(r, m.source(), outDir, written), output.out());
         return ExitCode.OK;
     }
 }

@@ -191,9 +191,16 @@ class CsvOutputTests {
         String corr = Run.file(dir, "corr.csv", "asset,=SUM(A1:A9),-Minus,@At\n=SUM(A1:A9),1,0.9,0.9\n"
                 + "-Minus,0.9,1,-0.9\n@At,0.9,-0.9,1\n");
         Path out = dir.resolve("repaired");
-        Run r = Run.of("check", "--repair", "--correlation", corr, "--out-dir", out.toString(), "--format", "csv");
+        Path report = dir.resolve("repair.csv");
+        Run r = Run.of("check", "--repair", "--correlation", corr, "--out-dir", out.toString(), "--format", "csv",
+                "--out", report.toString());
         assertEquals(0, r.code(), r.toString());
-        assertEquals(List.of(), SpreadsheetView.formulas(r.out()), r.out());
+        assertEquals("", r.out(), "--out takes the report");
+        assertEquals(List.of(), SpreadsheetView.formulas(Files.readString(report)), Files.readString(report));
+        CsvTable pairs = Csv.parse("repair.csv", "repair", Files.readString(report));
+        List<String> named = new ArrayList<>(column(pairs, 0));
+        named.addAll(column(pairs, 1));
+        assertEquals(java.util.Set.of("=SUM(A1:A9)", "-Minus", "@At"), java.util.Set.copyOf(named), "the pairs read back");
         allGuarded(out);
         String vols = Run.file(dir, "vols.csv", "asset,volatility\n=SUM(A1:A9),0.1\n-Minus,0.2\n@At,0.15\n");
         String means = Run.file(dir, "means.csv", "asset,expected_return\n=SUM(A1:A9),0.03\n-Minus,0.05\n@At,0.04\n");
