@@ -39,8 +39,8 @@ class DependencyRulesTests {
             .should().beFreeOfCycles();
 
     /**
-     * Results reach the disk only through {@code cli.files} ({@code RunFiles} → {@code AtomicWrite}): no other class of
-     * the command line writes, moves or creates a file or folder itself. ({@code Main} opens the standard streams.)
+     * Results reach the disk only through {@code cli.files} ({@code RunFiles} → {@code AtomicWrite}): no other class
+     * of the command line writes, moves or creates a file or folder itself. ({@code Main} opens the standard streams.)
      */
     @ArchTest
     static final ArchRule onlyTheFilesPackageWritesFiles = noClasses().that().resideInAPackage("org.isorisk.cli..")

@@ -119,8 +119,8 @@ public final class EstimateCommand extends BaseCommand {
     @OutputPath(RunFiles.Kind.FOLDER)
     @Option(names = "--out-dir", required = true, paramLabel = "DIR",
             description = "Folder for the tables and the report, written as a whole: a new or empty folder, or one "
-                    + "isorisk wrote before (it is replaced); any other folder is left alone, and so is a folder that holds "
-                    + "an input.")
+                    + "isorisk wrote before (it is replaced); any other folder is left alone, and so is a folder that "
+                    + "holds an input.")
     Path outDir;
 
     @Mixin

@@ -118,8 +118,8 @@ public final class PackCommand extends BaseCommand {
      * @param extraInputs further files to record and copy (e.g. the demo's README), as role and path
      * @param version     isorisk's version, for the manifest and the run record ({@link BaseCommand#toolVersion})
      */
-    static Made make(RunFiles files, LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile, Units units, Path out,
-                     boolean force, List<PackFolder.Input> extraInputs, String version) {
+    static Made make(RunFiles files, LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile,
+                     Units units, Path out, boolean force, List<PackFolder.Input> extraInputs, String version) {
         PackSpec spec = PackSpecReader.read(packFile);
         PolicyOption.Loaded loaded = policyOption.load(read);
         LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
@@ -158,8 +158,8 @@ public final class PackCommand extends BaseCommand {
         List<Scenario> scenarios = new ArrayList<>();
         if (spec.scenarios().isPresent()) {
             Path file = packFile.toAbsolutePath().getParent().resolve(spec.scenarios().get());
-            scenarios.addAll(ScenarioFile.read(RunFiles.reading("scenarios file named in --pack-file", file), u.assets(),
-                    loaded.groups(), null));
+            scenarios.addAll(ScenarioFile.read(RunFiles.reading("scenarios file named in --pack-file", file),
+                    u.assets(), loaded.groups(), null));
             more.add(new PackFolder.Input("scenarios", file));
         }
         more.addAll(extraInputs);

@@ -17,12 +17,12 @@ import org.isorisk.engine.error.InputException;
 
 /**
  * The one place where results become files, reached only through {@link RunFiles} (which first checks that the
- * target is a declared output that replaces no input of the run): everything is written to a temporary file (or folder) beside the
- * target and moved into place at the end, so that a reader never sees a half-written result and a failure
- * leaves the previous version untouched. Files and folders share one mechanism for that ({@code Publication}):
- * each write registers its temporary sibling, and the one shutdown hook (Ctrl-C, kill) removes every temporary
- * still being written and puts back an earlier output folder moved aside, while a rename already under way
- * finishes first.
+ * target is a declared output that replaces no input of the run): everything is written to a temporary file (or
+ * folder) beside the target and moved into place at the end, so that a reader never sees a half-written result and
+ * a failure leaves the previous version untouched. Files and folders share one mechanism for that
+ * ({@code Publication}): each write registers its temporary sibling, and the one shutdown hook (Ctrl-C, kill)
+ * removes every temporary still being written and puts back an earlier output folder moved aside, while a rename
+ * already under way finishes first.
  */
 public final class AtomicWrite {
     private AtomicWrite() {

@@ -12,8 +12,8 @@ public final class OutOption {
     @OutputPath(RunFiles.Kind.FILE)
     @Option(names = "--out", paramLabel = "FILE",
             description = "Write the result to FILE instead of standard output (atomically: written to a temporary "
-                    + "file beside it and moved into place, so a failed run leaves no partial file). FILE must not be one of the "
-                    + "inputs, and its folder must exist.")
+                    + "file beside it and moved into place, so a failed run leaves no partial file). FILE must not be "
+                    + "one of the inputs, and its folder must exist.")
     Path out;
 
     /** The output file, if one was given. */

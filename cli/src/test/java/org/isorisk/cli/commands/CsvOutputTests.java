@@ -200,7 +200,8 @@ class CsvOutputTests {
         CsvTable pairs = Csv.parse("repair.csv", "repair", Files.readString(report));
         List<String> named = new ArrayList<>(column(pairs, 0));
         named.addAll(column(pairs, 1));
-        assertEquals(java.util.Set.of("=SUM(A1:A9)", "-Minus", "@At"), java.util.Set.copyOf(named), "the pairs read back");
+        assertEquals(java.util.Set.of("=SUM(A1:A9)", "-Minus", "@At"), java.util.Set.copyOf(named),
+                "the pairs read back");
         allGuarded(out);
         String vols = Run.file(dir, "vols.csv", "asset,volatility\n=SUM(A1:A9),0.1\n-Minus,0.2\n@At,0.15\n");
         String means = Run.file(dir, "means.csv", "asset,expected_return\n=SUM(A1:A9),0.03\n-Minus,0.05\n@At,0.04\n");

@@ -221,8 +221,8 @@ class OutputNeverReplacesInputTests {
         inputs();
         Path own = Files.createDirectories(dir.resolve("own"));
         for (Case c : folderCases(own)) {
-            for (String f : List.of("prices.csv", "expected_returns.csv", "covariance.csv", "holdings.csv", "weights.csv",
-                    "pack.yaml")) {
+            for (String f : List.of("prices.csv", "expected_returns.csv", "covariance.csv", "holdings.csv",
+                    "weights.csv", "pack.yaml")) {
                 Files.copy(dir.resolve(f), own.resolve(f), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
             }
             String input = own.resolve(c.input()).toString();
@@ -267,7 +267,8 @@ class OutputNeverReplacesInputTests {
         // a stress scenario's replacement covariance, resolved against the scenario file's folder
         Files.writeString(dir.resolve("crisis.yaml"), "scenarios:\n  - name: crisis\n    shocks:\n"
                 + "      - covariance: {file: covariance.csv}\n");
-        Files.copy(dir.resolve("covariance.csv"), Files.createDirectories(dir.resolve("base")).resolve("covariance.csv"));
+        Files.copy(dir.resolve("covariance.csv"),
+                Files.createDirectories(dir.resolve("base")).resolve("covariance.csv"));
         Case stress = new Case(with("stress", List.of("--expected-returns", in("expected_returns.csv"), "--covariance",
                 in("base/covariance.csv"), "--targets", "0.04:0.05:0.01", "--scenarios", in("crisis.yaml"))), "--out",
                 RunFiles.Kind.FILE, "", "");
@@ -281,8 +282,8 @@ class OutputNeverReplacesInputTests {
         Files.move(dir.resolve("scenarios.yaml"), out.resolve("scenarios.yaml"));
         Files.createSymbolicLink(dir.resolve("scenarios.yaml"), out.resolve("scenarios.yaml"));
         Case pack = new Case(with("pack", List.of("--expected-returns", in("expected_returns.csv"), "--covariance",
-                in("covariance.csv"), "--holdings", in("holdings.csv"), "--pack-file", in("pack.yaml"), "--force")), "--out",
-                RunFiles.Kind.FOLDER, "", "");
+                in("covariance.csv"), "--holdings", in("holdings.csv"), "--pack-file", in("pack.yaml"), "--force")),
+                "--out", RunFiles.Kind.FOLDER, "", "");
         String scenarios = dir.toAbsolutePath().resolve("scenarios.yaml").toString();
         refused(pack, out.toString(), out + ": the --out folder holds the scenarios file named in --pack-file "
                 + scenarios + ", and would be replaced as a whole; " + RunFiles.RULE + "; fix: choose another --out "

@@ -211,9 +211,9 @@ class PackFolderTests {
                 run.input("expected-returns file", in).output("--out", target, RunFiles.Kind.FOLDER, true);
             }
         });
-        assertEquals(target + ": the --out folder holds the expected-returns file " + in + ", and would be replaced as a "
-                + "whole; an output never replaces an input of the same run; fix: choose another --out folder that holds "
-                + "none of the inputs", e.getMessage());
+        assertEquals(target + ": the --out folder holds the expected-returns file " + in + ", and would be "
+                + "replaced as a whole; an output never replaces an input of the same run; fix: choose another --out "
+                + "folder that holds none of the inputs", e.getMessage());
         assertTrue(Files.exists(in));
     }
 

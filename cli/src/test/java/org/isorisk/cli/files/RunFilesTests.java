@@ -74,11 +74,11 @@ class RunFilesTests {
             run.input("--data file", data);
             InputException e = assertThrows(InputException.class,
                     () -> run.output("--out", b, RunFiles.Kind.FOLDER, true));
-            assertEquals(b + ": --out names the --data file " + b + "; " + RunFiles.RULE + "; fix: choose another --out",
-                    e.getMessage());
+            assertEquals(b + ": --out names the --data file " + b + "; " + RunFiles.RULE
+                    + "; fix: choose another --out", e.getMessage());
             e = assertThrows(InputException.class, () -> run.output("--out", dir, RunFiles.Kind.FOLDER, true));
-            assertTrue(e.getMessage().startsWith(dir + ": the --out folder holds the --data file " + data.resolve("a.csv")
-                    + ", and would be replaced as a whole"), e.getMessage());
+            assertTrue(e.getMessage().startsWith(dir + ": the --out folder holds the --data file "
+                    + data.resolve("a.csv") + ", and would be replaced as a whole"), e.getMessage());
             run.output("--out", data.resolve("pack"), RunFiles.Kind.FOLDER, true); // beside the inputs is fine
         }
     }

@@ -40,8 +40,8 @@ class PackEndToEndTests {
                 .parameters(spec.toJson());
         Path target = dir.resolve("pack");
         try (RunFiles run = RunFiles.begin()) {
-            return PackFiles.addTo(f, o.content()).commit(run.output("--out", target, RunFiles.Kind.FOLDER, false), target)
-                    .folder();
+            run.output("--out", target, RunFiles.Kind.FOLDER, false);
+            return PackFiles.addTo(f, o.content()).commit(run, target).folder();
         }
     }
 
