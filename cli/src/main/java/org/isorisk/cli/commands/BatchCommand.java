@@ -10,8 +10,9 @@ import java.util.Locale;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.atomic.AtomicInteger;
-import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.cli.files.BatchFolder;
+import org.isorisk.cli.files.OutputPath;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.json.BookJson;
 import org.isorisk.cli.json.ResultJson;
 import org.isorisk.cli.options.Fingerprint;
@@ -87,6 +88,7 @@ public final class BatchCommand extends BaseCommand {
                     + "under each.")
     Path scenarios;
 
+    @OutputPath(RunFiles.Kind.FOLDER)
     @Option(names = "--out-dir", paramLabel = "DIR", required = true,
             description = "Folder for the tables (created; an unfinished run there of the same book and options is "
                     + "resumed).")
@@ -180,8 +182,7 @@ public final class BatchCommand extends BaseCommand {
         double seconds = (System.nanoTime() - t0) / 1e9;
         BookSummary total = folder.counts();
         ObjectNode summary = summary(kind, b, total, folder, outcome, n, seconds);
-        folder.finish(summary);
-        AtomicWrite.file(outDir.resolve("README.txt"), w -> w.write(readme(kind, folder.files())));
+        folder.finish(summary, readme(kind, folder.files()));
         if (formatOption.format() == Format.JSON) {
             ResultJson.write(ResultJson.finish(summary, elapsedMillis()), out());
         } else {

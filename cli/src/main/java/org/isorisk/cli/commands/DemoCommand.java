@@ -9,7 +9,9 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.stream.Stream;
+import org.isorisk.cli.files.OutputPath;
 import org.isorisk.cli.files.PackFolder;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
@@ -37,6 +39,7 @@ public final class DemoCommand extends BaseCommand {
 
     private static final List<String> REQUIRED = List.of("expected_returns.csv", "covariance.csv", "holdings.csv");
 
+    @OutputPath(RunFiles.Kind.FOLDER)
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "isorisk-demo",
             description = "Folder for the pack (default: ${DEFAULT-VALUE}); an earlier pack there is replaced, any "
                     + "other non-empty folder is refused.")
@@ -65,7 +68,7 @@ public final class DemoCommand extends BaseCommand {
             // any folder that is not an isorisk pack.
             PolicyOption policy = PolicyOption.of(Files.isRegularFile(dir.resolve("policy.yaml"))
                     ? dir.resolve("policy.yaml") : null);
-            PackCommand.Made made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), src.packFile(),
+            PackCommand.Made made = PackCommand.make(files(), u, policy, dir.resolve("holdings.csv"), src.packFile(),
                     Units.DECIMAL, out, true, extra, toolVersion());
             warn(made.warnings());
             out().print(made.summary());

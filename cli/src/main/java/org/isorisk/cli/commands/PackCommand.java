@@ -10,7 +10,9 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import org.isorisk.cli.files.PackFiles;
+import org.isorisk.cli.files.OutputPath;
 import org.isorisk.cli.files.PackFolder;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.usecase.PackAnalysis;
@@ -73,6 +75,7 @@ public final class PackCommand extends BaseCommand {
                     + "(see the README, 'The pack file').")
     Path packFile;
 
+    @OutputPath(value = RunFiles.Kind.FOLDER, force = "--force")
     @Option(names = "--out", paramLabel = "DIR", required = true,
             description = "The folder to create. It must not exist or be empty, unless --force is given.")
     Path out;
@@ -84,7 +87,8 @@ public final class PackCommand extends BaseCommand {
     @Override
     protected ExitCode execute() {
         LoadedUniverse u = inputs.load(true);
-        Made made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of(), toolVersion());
+        Made made = make(files(), u, policyOption, holdings, packFile, inputs.units(), out, force, List.of(),
+                toolVersion());
         warn(made.warnings());
         out().print(made.summary());
         out().flush();
@@ -110,11 +114,12 @@ public final class PackCommand extends BaseCommand {
     /**
      * Reads the policy, holdings and pack file, runs the analysis and writes the folder; shared with {@code demo}.
      *
+     * @param files       the run's files: {@code out} is one of its declared outputs
      * @param extraInputs further files to record and copy (e.g. the demo's README), as role and path
      * @param version     isorisk's version, for the manifest and the run record ({@link BaseCommand#toolVersion})
      */
-    static Made make(LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile, Units units, Path out,
-                     boolean force, List<PackFolder.Input> extraInputs, String version) {
+    static Made make(RunFiles files, LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile,
+                     Units units, Path out, boolean force, List<PackFolder.Input> extraInputs, String version) {
         PackSpec spec = PackSpecReader.read(packFile);
         PolicyOption.Loaded loaded = policyOption.load(read);
         LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
@@ -153,7 +158,8 @@ public final class PackCommand extends BaseCommand {
         List<Scenario> scenarios = new ArrayList<>();
         if (spec.scenarios().isPresent()) {
             Path file = packFile.toAbsolutePath().getParent().resolve(spec.scenarios().get());
-            scenarios.addAll(ScenarioFile.read(file, u.assets(), loaded.groups(), null));
+            scenarios.addAll(ScenarioFile.read(RunFiles.reading("scenarios file named in --pack-file", file),
+                    u.assets(), loaded.groups(), null));
             more.add(new PackFolder.Input("scenarios", file));
         }
         more.addAll(extraInputs);
@@ -198,7 +204,7 @@ public final class PackCommand extends BaseCommand {
         }
         String summary = summary(content, out, notes);
         folder.add("summary.txt", os -> os.write(summary.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
-        PackFolder.Result r = folder.commit(out, force);
+        PackFolder.Result r = folder.commit(files, out);
         return new Made(r.folder(), content, r.files().size(), summary, warnings);
     }
 

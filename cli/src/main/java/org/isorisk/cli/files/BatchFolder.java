@@ -210,8 +210,11 @@ public final class BatchFolder {
         }
     }
 
-    /** Renames every table into place and writes {@code summary.json}; the folder is then a finished run's. */
-    public void finish(ObjectNode summary) {
+    /**
+     * Renames every table into place and writes {@code summary.json} and {@code README.txt}; the folder is then a
+     * finished run's.
+     */
+    public void finish(ObjectNode summary, String readme) {
         try {
             for (FileChannel c : open.values()) {
                 c.close();
@@ -221,6 +224,7 @@ public final class BatchFolder {
                         StandardCopyOption.ATOMIC_MOVE);
             }
             AtomicWrite.file(dir.resolve("summary.json"), w -> ResultJson.write(summary, w));
+            AtomicWrite.file(dir.resolve("README.txt"), w -> w.write(readme));
             Files.deleteIfExists(dir.resolve(RUN).resolve(JOURNAL));
             Files.deleteIfExists(dir.resolve(RUN));
         } catch (IOException e) {

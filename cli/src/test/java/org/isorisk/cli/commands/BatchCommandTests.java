@@ -148,8 +148,9 @@ class BatchCommandTests {
         Files.writeString(other.resolve("notes.txt"), "mine");
         Run r = Run.of(sample("solve", other));
         assertEquals(2, r.code());
-        assertEquals("isorisk: error: " + other + ": the output folder has files that isorisk did not write; fix: give "
-                + "an empty or new folder for --out-dir\n", r.err());
+        // the command line's one check of outputs (cli.files.RunFiles), before any work
+        assertEquals("isorisk: error: " + other + ": the output folder exists and was not written by isorisk, so it is "
+                + "left alone; fix: choose another --out-dir, or empty the folder\n", r.err());
         assertEquals("mine", Files.readString(other.resolve("notes.txt")));
         Run usage = Run.of(sample("optimise", dir.resolve("x")));
         assertEquals(2, usage.code());
