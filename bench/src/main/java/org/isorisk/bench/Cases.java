@@ -21,6 +21,7 @@ public final class Cases {
         add(cases, new EstimateCase());
         add(cases, new RebalanceStressCase());
         add(cases, new StartupCase());
+        add(cases, new BookCase());
         return cases;
     }
 

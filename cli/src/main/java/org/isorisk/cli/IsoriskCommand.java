@@ -5,6 +5,7 @@ import java.io.InputStream;
 import java.util.List;
 import java.util.Properties;
 import org.isorisk.cli.commands.ChartCommand;
+import org.isorisk.cli.commands.BatchCommand;
 import org.isorisk.cli.commands.CheckCommand;
 import org.isorisk.cli.commands.DemoCommand;
 import org.isorisk.cli.commands.EstimateCommand;
@@ -41,6 +42,7 @@ public final class IsoriskCommand implements Runnable {
             RiskCommand.class,
             RebalanceCommand.class,
             StressCommand.class,
+            BatchCommand.class,
             ChartCommand.class,
             PackCommand.class,
             DemoCommand.class);

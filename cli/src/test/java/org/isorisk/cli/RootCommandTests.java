@@ -18,7 +18,7 @@ class RootCommandTests {
         Run r = Run.of();
         assertEquals(2, r.code(), r.toString());
         assertEquals("isorisk: error: name a command: check, solve, frontier, estimate, risk, rebalance, stress, "
-                + "chart, pack, demo (see 'isorisk --help')\n", r.err());
+                + "batch, chart, pack, demo (see 'isorisk --help')\n", r.err());
         assertEquals("", r.out());
     }
 

@@ -10,6 +10,9 @@
  * the manifest with the SHA-256 of every input and file; {@link org.isorisk.cli.files.PackFiles} adds what
  * {@code notebooks.PackLayout} renders) and the assumption tables and reports that {@code estimate} and
  * {@code check --repair} write ({@link org.isorisk.cli.files.AssumptionFiles}) go through it. Inputs are only ever
- * read. No other package of the command line writes a file ({@code DependencyRulesTests}).
+ * read. A book run's output folder ({@link org.isorisk.cli.files.BatchFolder}, declared as a folder output) is
+ * committed chunk by chunk, each chunk's journal through {@code AtomicWrite}, so that a run stopped by a crash or
+ * Ctrl-C resumes after its last complete chunk. No other package of the command line writes a file
+ * ({@code DependencyRulesTests}).
  */
 package org.isorisk.cli.files;

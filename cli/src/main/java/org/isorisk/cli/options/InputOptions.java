@@ -48,6 +48,21 @@ public final class InputOptions {
                     + "'# as_of:' line, if any).")
     String asOf;
 
+    /** The {@code --as-of} date as given, if given (commands that do not load the files record it as text). */
+    public java.util.Optional<String> asOf() {
+        return java.util.Optional.ofNullable(asOf);
+    }
+
+    /** The expected-returns file, if given. */
+    public java.util.Optional<Path> expectedReturns() {
+        return java.util.Optional.ofNullable(expectedReturns);
+    }
+
+    /** The volatilities file, if given. */
+    public java.util.Optional<Path> volatilities() {
+        return java.util.Optional.ofNullable(volatilities);
+    }
+
     /** The covariance file, if given. */
     public java.util.Optional<Path> covariance() {
         return java.util.Optional.ofNullable(covariance);

@@ -1,6 +1,5 @@
 package org.isorisk.engine.io;
 
-import java.io.IOException;
 import java.nio.ByteBuffer;
 import java.nio.CharBuffer;
 import java.nio.charset.CharacterCodingException;
@@ -9,7 +8,6 @@ import java.nio.charset.CoderResult;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -46,24 +44,22 @@ public final class Csv {
      * @param role what the file is read as, e.g. {@code expected-returns}; named in messages and provenance
      */
     public static CsvTable read(Path path, String role) {
-        String what = role.replace('-', ' ') + " file";
-        byte[] bytes;
-        try {
-            if (Files.isDirectory(path)) {
-                throw InputException.of("the " + what + " is a folder, not a file").file(path.toString())
-                        .fix("give the path of the CSV file itself").build();
-            }
-            bytes = Files.readAllBytes(path);
-        } catch (NoSuchFileException e) {
-            throw InputException.of("the " + what + " does not exist").file(path.toString())
-                    .fix("check the path; a relative path starts from the current folder").build();
-        } catch (IOException e) {
-            throw InputException.of("the " + what + " cannot be read: " + e.getMessage()).file(path.toString())
-                    .fix("check that the file exists and is readable").build();
+        return read(InputFile.of(path), role);
+    }
+
+    /**
+     * Reads a file wherever it lives (a local path, a Hadoop file system path, bytes in memory); errors name it
+     * by {@link InputFile#path()}.
+     *
+     * @param role what the file is read as, e.g. {@code expected-returns}; named in messages and provenance
+     */
+    public static CsvTable read(InputFile file, String role) {
+        if (file.local().map(Files::isDirectory).orElse(false)) {
+            throw InputException.of("the " + role.replace('-', ' ') + " file is a folder, not a file")
+                    .file(file.path()).fix("give the path of the CSV file itself").build();
         }
-        Path fileName = path.getFileName();
-        SourceFile source = new SourceFile(role, path.toString(), fileName == null ? path.toString() : fileName.toString(),
-                SourceFile.sha256(bytes), bytes.length);
+        byte[] bytes = file.readAll(role);
+        SourceFile source = new SourceFile(role, file.path(), file.name(), SourceFile.sha256(bytes), bytes.length);
         return parse(source, bytes);
     }
 
@@ -120,17 +116,22 @@ public final class Csv {
     }
 
     /** One record: its row number, its cells, and whether it was a comment or blank line. */
-    private record Record(int row, List<String> cells, List<Boolean> quoted, String comment) {
+    record Record(int row, List<String> cells, List<Boolean> quoted, String comment) {
         boolean blank() {
             return comment == null && cells.size() == 1 && !quoted.get(0) && cells.get(0).isEmpty();
         }
     }
 
     private static List<Record> records(SourceFile source, String s) {
+        return records(source, s, 1);
+    }
+
+    /** The records of {@code s}, numbered from {@code firstRow} (a later piece of a file read as a stream). */
+    static List<Record> records(SourceFile source, String s, int firstRow) {
         List<Record> out = new ArrayList<>();
         int n = s.length();
         int i = 0;
-        int row = 0;
+        int row = firstRow - 1;
         while (i < n) {
             row++;
             // A comment line: '#' as the first non-blank character of a record.
@@ -283,13 +284,9 @@ public final class Csv {
         for (; k < records.size(); k++) {
             Record r = records.get(k);
             if (r.comment() != null) {
-                int colon = r.comment().indexOf(':');
-                if (colon > 0) {
-                    String key = r.comment().substring(0, colon).strip().toLowerCase(Locale.ROOT);
-                    if (key.matches("[a-z0-9_\\-]+")) {
-                        meta.add(new CsvTable.Metadata(key, unguardPieces(r.comment().substring(colon + 1).strip()),
-                                r.row()));
-                    }
+                CsvTable.Metadata m = metadata(r);
+                if (m != null) {
+                    meta.add(m);
                 }
                 continue;
             }
@@ -302,6 +299,24 @@ public final class Csv {
                     .fix("start the file with a header row naming the columns").build();
         }
         Record h = records.get(k);
+        List<String> header = header(source, h);
+        List<CsvRow> rows = new ArrayList<>();
+        for (int r = k + 1; r < records.size(); r++) {
+            Record rec = records.get(r);
+            if (rec.comment() != null || rec.blank()) {
+                continue;
+            }
+            rows.add(dataRow(source, header, rec));
+        }
+        if (rows.isEmpty()) {
+            throw InputException.of("the file has a header but no data rows").file(source.path()).row(h.row())
+                    .fix("add one row per asset below the header").build();
+        }
+        return new CsvTable(source, header, h.row(), rows, meta);
+    }
+
+    /** The header record's names, checked: not separated by semicolons or tabs, every column named once. */
+    static List<String> header(SourceFile source, Record h) {
         List<String> header = new ArrayList<>(h.cells());
         while (header.size() > 1 && header.get(header.size() - 1).isEmpty() && !h.quoted().get(header.size() - 1)) {
             header.remove(header.size() - 1); // trailing empty cells a spreadsheet export may leave
@@ -332,47 +347,63 @@ public final class Csv {
                         .fix("give each column its own name").build();
             }
         }
-        List<CsvRow> rows = new ArrayList<>();
-        for (int r = k + 1; r < records.size(); r++) {
-            Record rec = records.get(r);
-            if (rec.comment() != null || rec.blank()) {
-                continue;
+        return header;
+    }
+
+    /** A data record as a row of the table: as many cells as the header (extra empty cells dropped), or an error. */
+    static CsvRow dataRow(SourceFile source, List<String> header, Record rec) {
+        List<String> cells = rec.cells();
+        if (cells.size() < header.size()) {
+            throw InputException.of("the row has " + cells.size() + " cell" + (cells.size() == 1 ? "" : "s")
+                            + " but the header has " + header.size() + " (" + String.join(", ", header) + ")")
+                    .file(source.path()).row(rec.row()).value(String.join(",", cells))
+                    .fix("give every row one cell per header column").build();
+        }
+        if (cells.size() > header.size()) {
+            boolean extraBlank = true;
+            for (int c = header.size(); c < cells.size(); c++) {
+                extraBlank &= cells.get(c).isEmpty() && !rec.quoted().get(c);
             }
-            List<String> cells = rec.cells();
-            if (cells.size() < header.size()) {
-                throw InputException.of("the row has " + cells.size() + " cell" + (cells.size() == 1 ? "" : "s")
-                                + " but the header has " + header.size() + " (" + String.join(", ", header) + ")")
-                        .file(source.path()).row(rec.row()).value(String.join(",", cells))
-                        .fix("give every row one cell per header column").build();
-            }
-            if (cells.size() > header.size()) {
-                boolean extraBlank = true;
-                for (int c = header.size(); c < cells.size(); c++) {
-                    extraBlank &= cells.get(c).isEmpty() && !rec.quoted().get(c);
-                }
-                if (!extraBlank) {
-                    for (int c = 1; c < cells.size(); c++) {
-                        if (!rec.quoted().get(c - 1) && !rec.quoted().get(c)
-                                && NumberText.looksSplitAtComma(cells.get(c - 1), cells.get(c))) {
-                            throw InputException.of("the row has more cells than the header: '" + cells.get(c - 1)
-                                            + "," + cells.get(c) + "' looks like a number written with a decimal "
-                                            + "comma or thousands separator").file(source.path()).row(rec.row())
-                                    .value(String.join(",", cells)).fix(NumberText.DECIMAL_COMMA_FIX).build();
-                        }
+            if (!extraBlank) {
+                for (int c = 1; c < cells.size(); c++) {
+                    if (!rec.quoted().get(c - 1) && !rec.quoted().get(c)
+                            && NumberText.looksSplitAtComma(cells.get(c - 1), cells.get(c))) {
+                        throw InputException.of("the row has more cells than the header: '" + cells.get(c - 1)
+                                        + "," + cells.get(c) + "' looks like a number written with a decimal "
+                                        + "comma or thousands separator").file(source.path()).row(rec.row())
+                                .value(String.join(",", cells)).fix(NumberText.DECIMAL_COMMA_FIX).build();
                     }
-                    throw InputException.of("the row has " + cells.size() + " cells but the header has "
-                                    + header.size() + " (" + String.join(", ", header) + ")").file(source.path())
-                            .row(rec.row()).value(String.join(",", cells))
-                            .fix("give every row one cell per header column; quote cells that contain commas").build();
                 }
-                cells = cells.subList(0, header.size());
+                throw InputException.of("the row has " + cells.size() + " cells but the header has "
+                                + header.size() + " (" + String.join(", ", header) + ")").file(source.path())
+                        .row(rec.row()).value(String.join(",", cells))
+                        .fix("give every row one cell per header column; quote cells that contain commas").build();
             }
-            rows.add(new CsvRow(rec.row(), cells));
+            cells = cells.subList(0, header.size());
         }
-        if (rows.isEmpty()) {
-            throw InputException.of("the file has a header but no data rows").file(source.path()).row(h.row())
-                    .fix("add one row per asset below the header").build();
+        return new CsvRow(rec.row(), cells);
+    }
+
+    /** A {@code # key: value} comment above the header as metadata; null for any other comment. */
+    static CsvTable.Metadata metadata(Record r) {
+        int colon = r.comment().indexOf(':');
+        if (colon > 0) {
+            String key = r.comment().substring(0, colon).strip().toLowerCase(Locale.ROOT);
+            if (key.matches("[a-z0-9_\\-]+")) {
+                return new CsvTable.Metadata(key, unguardPieces(r.comment().substring(colon + 1).strip()), r.row());
+            }
         }
-        return new CsvTable(source, header, h.row(), rows, meta);
+        return null;
+    }
+
+    /**
+     * Reads a file as a stream of rows, for files too large to hold (a book of a million portfolios): the same
+     * records, header checks, row checks and row numbers as {@link #read(InputFile, String)}, read piece by
+     * piece; the caller closes it.
+     *
+     * @param role what the file is read as, e.g. {@code book}; named in messages
+     */
+    public static CsvStream stream(InputFile file, String role) {
+        return CsvStream.open(file, role);
     }
 }

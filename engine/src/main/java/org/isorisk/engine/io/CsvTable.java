@@ -67,6 +67,17 @@ public record CsvTable(SourceFile source, List<String> header, int headerRow, Li
      * @param asset asset the row is about, for the message; null when unknown
      */
     public double number(CsvRow row, int column, String asset) {
+        return number(source.path(), header, row, column, asset);
+    }
+
+    /**
+     * The number in a cell of a file read as a table or as a stream ({@link CsvStream}); an error naming file, row,
+     * column, asset and value otherwise.
+     *
+     * @param file   the file's path as errors give it
+     * @param header the file's column names
+     */
+    static double number(String file, List<String> header, CsvRow row, int column, String asset) {
         String text = row.cell(column);
         double fast = Decimals.fast(text);
         if (!Double.isNaN(fast)) {
@@ -81,8 +92,8 @@ public record CsvTable(SourceFile source, List<String> header, int headerRow, Li
         }
         NumberText.Problem p = NumberText.problem(text);
         if (p != null) {
-            InputException.Builder b = error(p.problem()).row(row.number()).column(header.get(column)).value(text)
-                    .fix(p.fix());
+            InputException.Builder b = InputException.of(p.problem()).file(file).row(row.number())
+                    .column(header.get(column)).value(text).fix(p.fix());
             if (asset != null && !asset.isBlank()) {
                 b.asset(asset);
             }

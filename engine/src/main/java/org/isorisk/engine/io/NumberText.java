@@ -31,6 +31,15 @@ public final class NumberText {
     public record Problem(String problem, String fix) {
     }
 
+    /**
+     * The value of a plain decimal such as {@code 0.05} or {@code -1.25e-3} (at most 19 significant digits) read
+     * exactly and fast, or NaN for anything else, which the caller then judges with {@link #problem} and reads with
+     * {@link #parse} (large tables: a book's cells).
+     */
+    public static double fastOrNaN(String text) {
+        return text == null ? Double.NaN : Decimals.fast(text);
+    }
+
     /** The problem with {@code text} as a number, or null when {@link #parse(String)} will accept it. */
     public static Problem problem(String text) {
         String t = text == null ? "" : text.strip();

@@ -54,13 +54,16 @@ public final class PolicyReader {
 
     private final String file;
     private final Path baseDir;
+    /** The policy file when read as an {@link InputFile}: {@code bounds_file} is resolved against it. */
+    private final InputFile origin;
     private final List<String> assets;
     private final Map<String, Integer> index = new HashMap<>();
     private double budget = 1.0;
 
-    private PolicyReader(String file, Path baseDir, List<String> assets) {
+    private PolicyReader(String file, Path baseDir, InputFile origin, List<String> assets) {
         this.file = file;
         this.baseDir = baseDir;
+        this.origin = origin;
         this.assets = List.copyOf(assets);
         for (int i = 0; i < assets.size(); i++) {
             index.put(assets.get(i), i);
@@ -117,7 +120,28 @@ public final class PolicyReader {
      * @param baseDir  folder against which {@code bounds_file} is resolved (may be null when it is not used)
      */
     public static Policy read(Reader reader, String fileName, Path baseDir, List<String> assets) {
-        return new PolicyReader(fileName, baseDir, assets).parse(reader);
+        return new PolicyReader(fileName, baseDir, null, assets).parse(reader);
+    }
+
+    /**
+     * Reads a policy file wherever it lives (a local path, a Hadoop file system path, bytes in memory); a
+     * {@code bounds_file} inside it is resolved relative to it. Errors name the file by {@link InputFile#path()}.
+     *
+     * @param assets asset names, in the order every vector follows
+     */
+    public static Policy read(InputFile policy, List<String> assets) {
+        if (policy.local().isPresent()) {
+            return read(policy.local().get(), assets);
+        }
+        byte[] bytes;
+        try (java.io.InputStream in = policy.open()) {
+            bytes = in.readAllBytes();
+        } catch (IOException e) {
+            throw InputException.of("cannot read the policy file: " + e.getMessage()).file(policy.path())
+                    .fix("check the path given to --policy").build();
+        }
+        return new PolicyReader(policy.path(), null, policy, assets)
+                .parse(new StringReader(new String(bytes, StandardCharsets.UTF_8)));
     }
 
     private Policy parse(Reader reader) {
@@ -475,16 +499,30 @@ public final class PolicyReader {
     /** The optional per-asset table {@code asset,min,max[,group]}, resolved against the policy's folder. */
     private void limitsFile(Node at, String name, double[] lo, double[] hi, boolean[] named,
                             Map<String, List<Integer>> members, Map<String, Integer> memberLine) {
-        if (baseDir == null) {
-            throw error(at, "bounds_file", "bounds_file cannot be resolved here", name)
-                    .fix("read the policy from a file so that the bounds file can be found beside it").build();
+        CsvTable table;
+        if (origin != null) {
+            InputFile bounds = origin.resolve(name);
+            byte[] bytes;
+            try (java.io.InputStream in = bounds.open()) {
+                bytes = in.readAllBytes();
+            } catch (IOException e) {
+                throw error(at, "bounds_file", "cannot read the bounds file '" + name + "'", name)
+                        .fix("give a path relative to the policy file's folder").build();
+            }
+            table = Csv.parse(new SourceFile("bounds", bounds.path(), bounds.name(), SourceFile.sha256(bytes),
+                    bytes.length), bytes);
+        } else {
+            if (baseDir == null) {
+                throw error(at, "bounds_file", "bounds_file cannot be resolved here", name)
+                        .fix("read the policy from a file so that the bounds file can be found beside it").build();
+            }
+            Path path = baseDir.resolve(name);
+            if (!Files.isRegularFile(path)) {
+                throw error(at, "bounds_file", "cannot read the bounds file '" + name + "'", name)
+                        .fix("give a path relative to the policy file's folder").build();
+            }
+            table = Csv.read(path, "bounds");
         }
-        Path path = baseDir.resolve(name);
-        if (!Files.isRegularFile(path)) {
-            throw error(at, "bounds_file", "cannot read the bounds file '" + name + "'", name)
-                    .fix("give a path relative to the policy file's folder").build();
-        }
-        CsvTable table = Csv.read(path, "bounds");
         List<String> h = table.header().stream().map(x -> x.trim().toLowerCase(Locale.ROOT)).toList();
         if (!h.equals(List.of("asset", "min", "max")) && !h.equals(List.of("asset", "min", "max", "group"))) {
             throw InputException.of("the bounds file's header is not asset,min,max[,group]").file(name)

@@ -31,6 +31,11 @@ public final class PortfolioReader {
         return read(Csv.read(path, role), universe, units);
     }
 
+    /** Reads a portfolio file wherever it lives (a local path, a Hadoop file system path, bytes in memory). */
+    public static PortfolioFile read(InputFile file, String role, List<String> universe, Units units) {
+        return read(Csv.read(file, role), universe, units);
+    }
+
     /** Reads a table already parsed. */
     public static PortfolioFile read(CsvTable t, List<String> universe, Units units) {
         units = units == null ? Units.DECIMAL : units;

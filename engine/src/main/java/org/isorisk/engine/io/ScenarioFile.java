@@ -75,9 +75,35 @@ public final class ScenarioFile {
                 covariances);
     }
 
+    /** Reads a replacement covariance named in a scenario file that was read as an {@link InputFile}. */
+    @FunctionalInterface
+    public interface CovarianceInput {
+        double[][] read(InputFile file);
+    }
+
+    /**
+     * Reads and validates a scenario file wherever it lives (a local path, a Hadoop file system path); replacement
+     * covariance files are resolved relative to it.
+     *
+     * @param covariances reader for {@code covariance:} shocks; null when none is available
+     */
+    public static List<Scenario> read(InputFile file, List<String> assets, Map<String, List<Integer>> policyGroups,
+                                      CovarianceInput covariances) {
+        String text = new String(file.readAll("scenario"), StandardCharsets.UTF_8);
+        return parse(new StringReader(text), file.path(), assets, policyGroups,
+                covariances == null ? null : f -> covariances.read(file.resolve(f)));
+    }
+
     /** Parses scenario YAML from a reader; {@code name} is used in messages, {@code base} resolves files. */
     public static List<Scenario> parse(Reader in, String name, Path base, List<String> assets,
                                        Map<String, List<Integer>> policyGroups, CovarianceReader covariances) {
+        return parse(in, name, assets, policyGroups, covariances == null ? null
+                : f -> covariances.read(base == null ? Path.of(f) : base.resolve(f)));
+    }
+
+    private static List<Scenario> parse(Reader in, String name, List<String> assets,
+                                        Map<String, List<Integer>> policyGroups,
+                                        java.util.function.Function<String, double[][]> covariances) {
         Node root;
         try {
             root = new Yaml(new LoaderOptions()).compose(in);
@@ -86,7 +112,7 @@ public final class ScenarioFile {
             throw InputException.of(String.format(Locale.ROOT, "line %d: not valid YAML (%s)", line, e.getProblem()))
                     .file(name).fix("check the indentation and the colons on that line").build();
         }
-        Ctx c = new Ctx(name, base, assets, policyGroups == null ? Map.of() : policyGroups, covariances);
+        Ctx c = new Ctx(name, assets, policyGroups == null ? Map.of() : policyGroups, covariances);
         if (!(root instanceof MappingNode top)) {
             throw c.error(root, "top", "the file must be a mapping with the key 'scenarios'",
                     "start the file with 'scenarios:' followed by a list of scenarios");
@@ -118,14 +144,14 @@ public final class ScenarioFile {
 
     private static final class Ctx {
         final String file;
-        final Path base;
         final List<String> assets;
         final Map<String, List<Integer>> groups = new LinkedHashMap<>();
-        final CovarianceReader covariances;
+        /** The covariance a relative file name stands for; null when none can be read. */
+        final java.util.function.Function<String, double[][]> covariances;
 
-        Ctx(String file, Path base, List<String> assets, Map<String, List<Integer>> policy, CovarianceReader cov) {
+        Ctx(String file, List<String> assets, Map<String, List<Integer>> policy,
+            java.util.function.Function<String, double[][]> cov) {
             this.file = file;
-            this.base = base;
             this.assets = assets;
             this.groups.putAll(policy);
             this.covariances = cov;
@@ -276,8 +302,7 @@ public final class ScenarioFile {
                         throw error(v, "covariance.file", "a replacement covariance cannot be read here",
                                 "give the scenario file to a command that reads covariance files (isorisk stress)");
                     }
-                    Path p = base == null ? Path.of(f) : base.resolve(f);
-                    return new Shock.Covariance(f, covariances.read(p));
+                    return new Shock.Covariance(f, covariances.apply(f));
                 }
                 default -> throw error(t.getKeyNode(), kind, "unknown shock",
                         "use volatility, correlation, return or covariance");

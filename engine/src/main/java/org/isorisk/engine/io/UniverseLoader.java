@@ -51,6 +51,19 @@ public final class UniverseLoader {
     }
 
     /**
+     * Reads and validates assumption files wherever they live (local paths, Hadoop file system paths); the
+     * arguments are as in {@link UniverseFiles}, each null when not given.
+     */
+    public static LoadedUniverse load(InputFile expectedReturns, InputFile covariance, InputFile volatilities,
+                                      InputFile correlation, Units units, java.time.LocalDate asOf) {
+        CsvTable mu = expectedReturns == null ? null : Csv.read(expectedReturns, "expected-returns");
+        CsvTable cov = covariance == null ? null : Csv.read(covariance, "covariance");
+        CsvTable vol = volatilities == null ? null : Csv.read(volatilities, "volatilities");
+        CsvTable cor = correlation == null ? null : Csv.read(correlation, "correlation");
+        return build(mu, cov, vol, cor, units, asOf);
+    }
+
+    /**
      * Builds a validated universe from tables already read; {@code returns} may be null, and exactly one of
      * {@code covariance} or the pair ({@code volatilities}, {@code correlation}) must be given.
      */

@@ -25,10 +25,36 @@ public final class Workers {
         void run(int part);
     }
 
-    /** Runs parts 1..parts−1 on the pool and part 0 on the calling thread; returns when all are done. */
+    /** True on a thread inside {@link #onCallingThread}: every split runs there, part after part. */
+    private static final ThreadLocal<Boolean> CALLER_ONLY = ThreadLocal.withInitial(() -> Boolean.FALSE);
+
+    /**
+     * Runs {@code work} with every split of this class done on the calling thread, part after part: for a caller
+     * that already runs many independent jobs on its own threads (a book of portfolios) and must not have each
+     * job fork again. The results are the same to the last bit, since a split never changes the order of any
+     * floating-point operation, only which thread does it.
+     */
+    public static <T> T onCallingThread(java.util.function.Supplier<T> work) {
+        if (CALLER_ONLY.get()) {
+            return work.get();
+        }
+        CALLER_ONLY.set(Boolean.TRUE);
+        try {
+            return work.get();
+        } finally {
+            CALLER_ONLY.set(Boolean.FALSE);
+        }
+    }
+
+    /**
+     * Runs parts 1..parts−1 on the pool and part 0 on the calling thread; returns when all are done. Inside
+     * {@link #onCallingThread} every part runs on the calling thread, in order.
+     */
     public static void run(int parts, Part body) {
-        if (parts <= 1) {
-            body.run(0);
+        if (parts <= 1 || CALLER_ONLY.get()) {
+            for (int p = 0; p < Math.max(1, parts); p++) {
+                body.run(p);
+            }
             return;
         }
         ExecutorService ex = pool();

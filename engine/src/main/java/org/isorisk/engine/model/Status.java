@@ -4,7 +4,9 @@ package org.isorisk.engine.model;
 public enum Status {
     OPTIMAL("optimal"),
     INFEASIBLE("infeasible"),
-    INVALID_INPUT("invalid-input");
+    INVALID_INPUT("invalid-input"),
+    /** A numerical failure (an iteration limit, a bug): reported, never silent. */
+    NOT_SOLVED("not-solved");
 
     private final String label;
 

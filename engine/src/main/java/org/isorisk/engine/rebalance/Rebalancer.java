@@ -52,6 +52,24 @@ public final class Rebalancer {
         return new Run(r, new SessionLiftedSolver(r.settings())).run();
     }
 
+    /**
+     * {@link #rebalance(RebalanceRequest)} on a universe factored beforehand for many requests (a book of
+     * portfolios): bit for bit the same result. The certificate's spectrum of Σ is the prepared one where it is the
+     * very value a lone rebalance computes (the exact decomposition, up to
+     * {@link org.isorisk.engine.linalg.Spectrum#EXACT_LIMIT} assets); above that it is computed as before.
+     *
+     * @param prepared {@code Allocator.prepare(r.universe(), ...)} (not modified)
+     * @throws IllegalArgumentException when {@code prepared} was made for another universe object
+     */
+    public static RebalanceResult rebalance(RebalanceRequest r, org.isorisk.engine.solve.Factored prepared) {
+        if (prepared.universe() != r.universe()) {
+            throw new IllegalArgumentException("the prepared factor belongs to another universe");
+        }
+        Run run = new Run(r, new SessionLiftedSolver(r.settings()));
+        run.prepared = prepared;
+        return run.run();
+    }
+
     /** One rebalance: the state of the minimum-trade rule and the objective searches. */
     static final class Run {
         final RebalanceRequest req;
@@ -65,6 +83,8 @@ public final class Rebalancer {
         final List<String> notes = new ArrayList<>();
         int solves;
         QpPoint warm;
+        /** The universe factored once for many rebalances, or null. */
+        org.isorisk.engine.solve.Factored prepared;
 
         Run(RebalanceRequest req, LiftedSolver solver) {
             this.req = req;
@@ -464,9 +484,14 @@ public final class Rebalancer {
                 trades.add(new Trade(u.assets().get(i), w0[i], w0[i] + d, d, d * size, ci, side, why[i]));
             }
             double turnover = buys + sells;
-            double[][] sigma = u.covariance();
-            org.isorisk.engine.linalg.Cholesky ch = org.isorisk.engine.linalg.Cholesky.factor(sigma);
-            Spectrum sp = ch == null ? Spectrum.of(sigma) : Spectrum.of(sigma, ch);
+            Spectrum sp;
+            if (prepared != null && n <= Spectrum.EXACT_LIMIT) {
+                sp = prepared.spectrum(); // Spectrum.exact of the same Σ, as computed below
+            } else {
+                double[][] sigma = u.covariance();
+                org.isorisk.engine.linalg.Cholesky ch = org.isorisk.engine.linalg.Cholesky.factor(sigma);
+                sp = ch == null ? Spectrum.of(sigma) : Spectrum.of(sigma, ch);
+            }
             Certificate cert = Kkt.certify(p.hessian(), x, p.rows, pr.rowPrices(), p.lower, p.upper,
                     pr.lowerPrices(), pr.upperPrices(), sp.conditionNumber(), req.settings().numericalTolerance(),
                     sp.smallest() >= -1e-12 * Math.max(1, sp.largest()));

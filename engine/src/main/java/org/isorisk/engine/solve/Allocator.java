@@ -51,11 +51,43 @@ public final class Allocator {
      * @param warmStart a previous solution, or null for a cold start
      */
     public static Solution solve(AllocationRequest r, Solution warmStart) {
+        return solve(r, warmStart, null);
+    }
+
+    /**
+     * Factors the universe's covariance once for many solves on the same assumptions (a book of portfolios):
+     * what {@link #solveWith} takes. The same factorisation {@link #solve} makes for each request.
+     *
+     * @param settings the thread count of the factorisation; null for {@link SolverSettings#defaults()}
+     * @throws NoSolutionException (NOT_CONVEX) when Σ is not positive definite, as {@link #solve} would
+     */
+    public static Factored prepare(AssetUniverse u, SolverSettings settings) {
+        return Factored.of(u, settings == null ? SolverSettings.defaults() : settings);
+    }
+
+    /**
+     * Solves one allocation problem on a universe factored beforehand by {@link #prepare}: bit for bit the
+     * solution {@link #solve(AllocationRequest)} gives for the same request (the factor and its spectrum are the
+     * ones that call would compute; solves with it start from an empty memory, as in a fresh call), without the
+     * per-request factorisation and condition estimate. With {@code r.settings().threads() == 1} no other thread
+     * is used.
+     *
+     * @param prepared {@code prepare(r.universe(), ...)}; shared by any number of threads (not modified)
+     * @throws IllegalArgumentException when {@code prepared} was made for another universe object
+     */
+    public static Solution solveWith(Factored prepared, AllocationRequest r) {
+        if (prepared.universe() != r.universe()) {
+            throw new IllegalArgumentException("the prepared factor belongs to another universe");
+        }
+        return solve(r, null, prepared);
+    }
+
+    private static Solution solve(AllocationRequest r, Solution warmStart, Factored prepared) {
         Mandate m = r.mandate();
         Method method = r.method();
         if (method == Method.AUTO && !m.equalitiesOnly()) {
             // closed form when nothing binds (issue 3's method choice); else a bounded method below
-            Solution interior = InteriorShortcut.tryClosedForm(r);
+            Solution interior = InteriorShortcut.tryClosedForm(r, prepared == null ? null : prepared.fresh());
             if (interior != null) {
                 return interior;
             }
@@ -70,7 +102,7 @@ public final class Allocator {
             }
         }
         if (method == Method.CRITICAL_LINE) {
-            return criticalLine(r);
+            return criticalLine(r, prepared);
         }
         if (method == Method.NUMERICAL) {
             return session(r.universe(), m, r.settings()).solve(r.objective(), warmStart);
@@ -81,7 +113,8 @@ public final class Allocator {
                                 + "policy has bounds or inequality limits")
                         .fix("drop --method closed-form (auto picks a bounded method) or remove the bounds").build();
             }
-            return closedForm(Factored.of(r.universe(), r.settings()), m, r.objective(), r);
+            return closedForm(prepared != null ? prepared.fresh() : Factored.of(r.universe(), r.settings()), m,
+                    r.objective(), r);
         }
         throw new NoSolutionException(NoSolutionException.Reason.NOT_CONVERGED,
                 "method " + method.label() + " is not available in this build", List.of());
@@ -91,12 +124,20 @@ public final class Allocator {
      * Critical line solve: the minimum-variance portfolio under budget, bounds and fixed weights, or the exact
      * frontier portfolio at a target return (interpolated between its two corner portfolios).
      */
-    private static Solution criticalLine(AllocationRequest r) {
+    private static Solution criticalLine(AllocationRequest r, Factored prepared) {
         if (r.objective() instanceof Objective.Tangency) {
             throw InputException.of("the critical line method here solves minimum-variance and target-return "
                     + "problems, not the tangency portfolio").fix("drop --method critical-line for --risk-free").build();
         }
-        MandateSweep sweep = MandateSweep.of(r.universe(), r.mandate(), r.settings());
+        MandateSweep sweep = null;
+        if (prepared != null) {
+            MandateSweep kept = prepared.sharedSweep(r.mandate(), r.settings(),
+                    () -> MandateSweep.of(r.universe(), r.mandate(), r.settings(), prepared.fresh()));
+            sweep = kept == null ? null : kept.forCall(prepared.fresh());
+        }
+        if (sweep == null) {
+            sweep = MandateSweep.of(r.universe(), r.mandate(), r.settings(), prepared == null ? null : prepared.fresh());
+        }
         if (r.objective() instanceof Objective.TargetReturn t) {
             return sweep.target(t.target());
         }

@@ -454,11 +454,30 @@ final class CriticalLine {
     }
 
     private double returnOf(double[] x) {
+        return returnOf(r, x);
+    }
+
+    /** {@code r'x} summed in index order: what {@link #walk} compares with its stopping return. */
+    static double returnOf(double[] r, double[] x) {
         double s = 0;
-        for (int i = 0; i < n; i++) {
+        for (int i = 0; i < x.length; i++) {
             s += r[i] * x[i];
         }
         return s;
+    }
+
+    /**
+     * The walk {@code walk(p, r, stopAt, ...)} would return, read from the whole walk {@code full} (stopAt = −∞)
+     * of the same problem and direction: the walk is the same whatever its stopping return, and stops after the
+     * first corner (not the start, not the λ = 0 end) whose return is below {@code stopAt}.
+     */
+    static List<Point> prefix(List<Point> full, double[] r, double stopAt) {
+        for (int i = 1; i < full.size() - 1; i++) {
+            if (returnOf(r, full.get(i).weights()) < stopAt) {
+                return new ArrayList<>(full.subList(0, i + 1));
+            }
+        }
+        return new ArrayList<>(full);
     }
 
     private record Candidate(double lambda, int asset, Kind kind) {

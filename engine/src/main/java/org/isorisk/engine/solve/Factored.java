@@ -11,6 +11,7 @@ import org.isorisk.engine.linalg.Cholesky;
 import org.isorisk.engine.linalg.Definiteness;
 import org.isorisk.engine.linalg.Spectrum;
 import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.SolverSettings;
 
 /**
@@ -30,9 +31,24 @@ public final class Factored {
     /** The last product {@code {w, Σw}}, so that the certificate of the same weights does not compute it twice. */
     private volatile double[][] lastProduct;
     private final Map<Key, double[]> memo = new ConcurrentHashMap<>();
+    /**
+     * Critical-line sweeps kept for the mandates this prepared universe solves more than once (by identity: a book's
+     * rows that share a policy share its mandate object), or the error their checks gave; shared by the
+     * {@link #fresh()} copies.
+     */
+    private final Map<Object, Object> sweeps;
+
+    /** Most mandates whose sweeps are kept; past it the memory starts afresh. */
+    static final int SWEEP_LIMIT = 256;
 
     private Factored(AssetUniverse universe, Cholesky chol, Spectrum spectrum,
                      java.util.concurrent.FutureTask<Spectrum> pending) {
+        this(universe, chol, spectrum, pending, new ConcurrentHashMap<>());
+    }
+
+    private Factored(AssetUniverse universe, Cholesky chol, Spectrum spectrum,
+                     java.util.concurrent.FutureTask<Spectrum> pending, Map<Object, Object> sweeps) {
+        this.sweeps = sweeps;
         this.universe = universe;
         this.pending = pending;
         this.chol = chol;
@@ -90,6 +106,61 @@ public final class Factored {
         t.setDaemon(true);
         t.start();
         return new Factored(u, chol, null, task);
+    }
+
+    /**
+     * The same factor and spectrum with an empty memory of solves, for one solve of a book of portfolios that
+     * shares this factorisation: every {@code Σ⁻¹a} is then computed exactly as a freshly factored universe
+     * computes it (several right-hand sides are solved together, as a fresh solve would), so a solve through
+     * {@link Allocator#solveWith} gives bit for bit the answer of {@link Allocator#solve}. Waits for a pending
+     * condition estimate.
+     */
+    Factored fresh() {
+        return new Factored(universe, chol, spectrum(), null, sweeps);
+    }
+
+    /** The key of a mandate's sweep: the mandate object itself (identity) and the settings (by value). */
+    private record SweepKey(Mandate mandate, SolverSettings settings) {
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof SweepKey k && k.mandate == mandate && k.settings.equals(settings);
+        }
+
+        @Override
+        public int hashCode() {
+            return System.identityHashCode(mandate) * 31 + settings.hashCode();
+        }
+    }
+
+    /**
+     * The sweep kept for {@code m} (see {@link MandateSweep#shared()}), made on the second solve with the same
+     * mandate object; null on the first (a mandate seen once is solved as usual, with a walk that stops at its
+     * target). A check of the mandate that failed is rethrown, the same error every time.
+     */
+    MandateSweep sharedSweep(Mandate m, SolverSettings settings, java.util.function.Supplier<MandateSweep> make) {
+        SweepKey key = new SweepKey(m, settings);
+        Object o = sweeps.get(key);
+        if (o == null) {
+            if (sweeps.size() >= SWEEP_LIMIT) {
+                sweeps.clear();
+            }
+            sweeps.putIfAbsent(key, Boolean.FALSE); // seen once
+            return null;
+        }
+        if (o == Boolean.FALSE) {
+            Object made;
+            try {
+                made = make.get().shared();
+            } catch (RuntimeException e) {
+                made = e;
+            }
+            sweeps.put(key, made);
+            o = made;
+        }
+        if (o instanceof RuntimeException e) {
+            throw e;
+        }
+        return (MandateSweep) o;
     }
 
     private static Spectrum checked(AssetUniverse u, Spectrum sp) {

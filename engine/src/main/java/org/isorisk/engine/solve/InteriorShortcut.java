@@ -31,13 +31,22 @@ final class InteriorShortcut {
 
     /** The closed-form optimum when it is strictly feasible for the whole mandate, else null. */
     static Solution tryClosedForm(AllocationRequest r) {
+        return tryClosedForm(r, null);
+    }
+
+    /**
+     * As {@link #tryClosedForm(AllocationRequest)}, on a universe already factored.
+     *
+     * @param prepared the request's universe factored ({@link Factored#fresh()}), or null to factor it here
+     */
+    static Solution tryClosedForm(AllocationRequest r, Factored prepared) {
         AssetUniverse u = r.universe();
         Mandate m = r.mandate();
         Mandate equalities = equalitiesOf(m);
         Factored f;
         Solution cf;
         try {
-            f = Factored.ofOverlapped(u, r.settings());
+            f = prepared != null ? prepared : Factored.ofOverlapped(u, r.settings());
             cf = Allocator.closedForm(f, equalities, r.objective(), r);
         } catch (NoSolutionException e) {
             return null; // let the bounded method diagnose it with the whole mandate in view

@@ -70,9 +70,35 @@ final class MandateSweep {
     private List<CriticalLine.Point> efficient;
     private boolean efficientComplete;
     private List<CriticalLine.Point> inefficient;
+    /** Whole walks shared by the copies of a sweep made once for many solves ({@link #forCall}); null otherwise. */
+    private final Walks walks;
+
+    /**
+     * The two whole walks of one problem (efficient and inefficient branch), computed on first need and shared by
+     * every copy of a sweep: a copy's partial walk is read from them ({@link CriticalLine#prefix}), the same points
+     * to the last bit, since the walk does not depend on where it stops. A whole walk that fails (an iteration limit,
+     * a singular free block) is not kept: copies then walk themselves, and fail or stop exactly as before.
+     */
+    private static final class Walks {
+        private final Object[] whole = new Object[2];
+
+        synchronized List<CriticalLine.Point> whole(int branch, java.util.function.Supplier<List<CriticalLine.Point>> walk) {
+            if (whole[branch] == null) {
+                try {
+                    whole[branch] = walk.get();
+                } catch (RuntimeException e) {
+                    whole[branch] = Boolean.FALSE;
+                }
+            }
+            @SuppressWarnings("unchecked")
+            List<CriticalLine.Point> w = whole[branch] instanceof List<?> l ? (List<CriticalLine.Point>) l : null;
+            return w;
+        }
+    }
 
     private MandateSweep(AssetUniverse u, double[][] sigma, java.util.concurrent.CompletableFuture<Factored> factoring,
                          Mandate mandate, SolverSettings settings, CriticalLine.Problem problem, boolean[] bookFixed) {
+        this.walks = null;
         this.u = u;
         this.sigma = sigma;
         this.factoring = factoring;
@@ -126,6 +152,44 @@ final class MandateSweep {
         this.namesWithTarget = new CompactMultipliers.Names(all);
     }
 
+    /** A copy for one solve: everything derived from the universe and mandate shared, the walks' state fresh. */
+    private MandateSweep(MandateSweep t, Walks walks, Factored prepared) {
+        this.walks = walks;
+        this.u = t.u;
+        this.sigma = t.sigma;
+        this.factoring = java.util.concurrent.CompletableFuture.completedFuture(prepared);
+        this.mandate = t.mandate;
+        this.settings = t.settings;
+        this.problem = t.problem;
+        this.n = t.n;
+        this.mu = t.mu;
+        this.negMu = t.negMu;
+        this.bookFixed = t.bookFixed;
+        this.rows = t.rows;
+        this.rowsWithTarget = t.rowsWithTarget;
+        this.limits = t.limits;
+        this.lowerAt = t.lowerAt;
+        this.upperAt = t.upperAt;
+        this.lowerBounds = t.lowerBounds;
+        this.upperBounds = t.upperBounds;
+        this.names = t.names;
+        this.namesWithTarget = t.namesWithTarget;
+    }
+
+    /**
+     * A sweep to keep for many solves on the same universe and mandate (a book whose portfolios share a policy):
+     * {@link #forCall} copies of it give, for every target, the solution a fresh {@link #of} sweep gives, to the
+     * last bit, with the mandate's checks, names and walks made once. Only the copies are used; thread-safe.
+     */
+    MandateSweep shared() {
+        return new MandateSweep(this, new Walks(), null);
+    }
+
+    /** A copy of a {@link #shared()} sweep for one solve, proving convexity with {@code prepared}. */
+    MandateSweep forCall(Factored prepared) {
+        return new MandateSweep(this, walks, prepared);
+    }
+
     /** Why the critical line method cannot take a mandate, or null when it can. */
     static String unsupported(Mandate m) {
         if (!m.groups().isEmpty()) {
@@ -165,6 +229,16 @@ final class MandateSweep {
      *                             meet the budget
      */
     static MandateSweep of(AssetUniverse universe, Mandate m, SolverSettings s) {
+        return of(universe, m, s, null);
+    }
+
+    /**
+     * As {@link #of(AssetUniverse, Mandate, SolverSettings)}, with the proof of positive definiteness taken from
+     * a factorisation made once for many solves.
+     *
+     * @param prepared the universe factored ({@link Factored#fresh()}), or null to factor it here
+     */
+    static MandateSweep of(AssetUniverse universe, Mandate m, SolverSettings s, Factored prepared) {
         String why = unsupported(m);
         if (why != null) {
             throw InputException.of("the critical line method takes only the budget, per-asset bounds and fixed "
@@ -235,8 +309,9 @@ final class MandateSweep {
         }
         // Positive definiteness (one Cholesky factorisation) is checked on another thread while the walk runs;
         // the walk itself only ever factors the free block.
-        java.util.concurrent.CompletableFuture<Factored> factoring = s.threads() > 1
-                ? java.util.concurrent.CompletableFuture.supplyAsync(() -> Factored.of(u, s))
+        java.util.concurrent.CompletableFuture<Factored> factoring = prepared != null
+                ? java.util.concurrent.CompletableFuture.completedFuture(prepared)
+                : s.threads() > 1 ? java.util.concurrent.CompletableFuture.supplyAsync(() -> Factored.of(u, s))
                 : java.util.concurrent.CompletableFuture.completedFuture(null);
         return new MandateSweep(u, sigma, factoring, m, s, p, bookFixed);
     }
@@ -345,6 +420,13 @@ final class MandateSweep {
      * perfectly correlated pair when there is one.
      */
     private List<CriticalLine.Point> walk(double[] dir, double stopAt) {
+        if (walks != null) {
+            List<CriticalLine.Point> whole = walks.whole(dir == mu ? 0 : 1, () -> CriticalLine.walk(problem, dir,
+                    Double.NEGATIVE_INFINITY, settings.maxIterations(), settings.threads()));
+            if (whole != null) {
+                return CriticalLine.prefix(whole, dir, stopAt);
+            }
+        }
         try {
             return CriticalLine.walk(problem, dir, stopAt, settings.maxIterations(), settings.threads());
         } catch (NoSolutionException e) {

@@ -53,7 +53,12 @@ public final class Stress {
         int threads = Math.max(1, Math.min(r.settings().threads(), Math.max(1, r.scenarios().size())));
         Sweep base = sweep(r.universe(), r.mandate(), t, r.settings(), pr, done, total, "base");
         List<ScenarioResult> results = new ArrayList<>();
-        if (!r.scenarios().isEmpty()) {
+        if (threads == 1) {
+            // one thread asked for (e.g. a book of portfolios, already run in parallel): no pool of our own
+            for (int k = 0; k < r.scenarios().size(); k++) {
+                results.add(scenario(r.scenarios().get(k), shocked.get(k), base, r, pr, done, total));
+            }
+        } else if (!r.scenarios().isEmpty()) {
             ExecutorService pool = Executors.newFixedThreadPool(threads, run -> {
                 Thread th = new Thread(run, "isorisk-stress");
                 th.setDaemon(true);

@@ -4,8 +4,8 @@ import java.io.IOException;
 import java.io.StringWriter;
 import java.io.UncheckedIOException;
 import java.io.Writer;
-import java.math.BigDecimal;
 import java.util.List;
+import org.isorisk.engine.book.CsvCells;
 import org.isorisk.engine.explain.Caution;
 
 /**
@@ -26,7 +26,9 @@ import org.isorisk.engine.explain.Caution;
  * are written as plain numbers, so {@code -0.05} stays a negative number that spreadsheets and pandas read as
  * such. The rule is reversible ({@link #restore}): the engine's CSV reader undoes it on every cell, so a
  * {@code solve} CSV is a valid {@code risk --weights} input and an {@code estimate} table a valid {@code solve}
- * input whatever the asset names; the notebook's Python helper undoes it the same way when it reloads the tables.
+ * input whatever the asset names; the notebook's Python helper undoes it the same way when it reloads the tables. The cells
+ * themselves (numbers, quoting, the guard) are the engine's {@code engine.book.CsvCells}, which the tables of a book
+ * of portfolios are written with too, in process and on Spark.
  */
 public final class CsvWriter {
     private final Writer out;
@@ -116,22 +118,12 @@ public final class CsvWriter {
      * pandas' {@code comment="#"}, skip the rest of an unquoted line).
      */
     static String cell(String s) {
-        if (s.indexOf(',') >= 0 || s.indexOf('"') >= 0 || s.indexOf('\n') >= 0 || s.indexOf('\r') >= 0
-                || s.indexOf('#') >= 0 || !s.equals(s.strip())) {
-            return '"' + s.replace("\"", "\"\"") + '"';
-        }
-        return s;
+        return CsvCells.quote(s);
     }
 
     /** A number with a decimal point and enough digits to read back the same double; empty when not finite. */
     public static String number(double v) {
-        if (!Double.isFinite(v)) {
-            return "";
-        }
-        if (v != 0 && Math.abs(v) < 1e-6) {
-            return Double.toString(v);
-        }
-        return BigDecimal.valueOf(v).stripTrailingZeros().toPlainString();
+        return CsvCells.number(v);
     }
 
     /**
@@ -165,12 +157,12 @@ public final class CsvWriter {
 
     /** Applies the formula guard to one text cell (see the class comment); {@link #row} does it for every text cell. */
     public static String neutralise(String s) {
-        return risky(s) ? "'" + s : s;
+        return CsvCells.guard(s);
     }
 
     /** Undoes {@link #neutralise}: removes one leading apostrophe when the guard added it. */
     public static String restore(String s) {
-        return s.startsWith("'") && risky(s.substring(1)) ? s.substring(1) : s;
+        return CsvCells.unguard(s);
     }
 
     /**
