@@ -11,6 +11,8 @@ import java.util.List;
 import java.util.stream.Stream;
 import org.isorisk.cli.files.PackFolder;
 import org.isorisk.cli.options.PolicyOption;
+import org.isorisk.cli.render.ProgressLine;
+import org.isorisk.cli.render.StepProgress;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.Units;
@@ -48,6 +50,10 @@ public final class DemoCommand extends BaseCommand {
                     + "fund.")
     Path data;
 
+    @Option(names = "--quiet", description = "No progress on stderr (by default a step that runs longer than a second "
+            + "is shown there).")
+    boolean quiet;
+
     @Override
     protected ExitCode execute() throws IOException {
         Path in = Files.createTempDirectory("isorisk-demo-inputs-");
@@ -65,9 +71,12 @@ public final class DemoCommand extends BaseCommand {
             // any folder that is not an isorisk pack.
             PolicyOption policy = PolicyOption.of(Files.isRegularFile(dir.resolve("policy.yaml"))
                     ? dir.resolve("policy.yaml") : null);
-            PackCommand.Made made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), src.packFile(),
-                    Units.DECIMAL, out, true, extra, toolVersion());
-            warn(made.warnings());
+            PackCommand.Made made;
+            try (StepProgress progress = quiet ? null
+                    : new StepProgress(err(), ProgressLine.stderrIsTerminal(), spec.name())) {
+                made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), src.packFile(), Units.DECIMAL, out,
+                        true, extra, toolVersion(), progress, this::warn);
+            }
             out().print(made.summary());
             out().flush();
             err().flush();
@@ -109,7 +118,11 @@ public final class DemoCommand extends BaseCommand {
                 extract("scenarios.yaml", temp);
             }
             extract("pack.yaml", temp);
-            return new Sources(data, temp.resolve("pack.yaml"));
+            // The bundled pack file's fund size is the sample holdings' total; the folder's holdings set their own
+            // (a fund size that contradicts the holdings' market values is refused, as 'rebalance' refuses it).
+            Path pack = temp.resolve("pack.yaml");
+            Files.writeString(pack, Files.readString(pack).replaceAll("(?m)^fund_size:.*\\R", ""));
+            return new Sources(data, pack);
         }
         for (String name : SAMPLE_FILES) {
             extract(name, temp);
