@@ -323,10 +323,14 @@ public final class NotebookWriter {
     }
 
     private void stress() {
+        boolean proposal = content.stress().stream().anyMatch(t -> t.name().equals("stress_proposal"));
         List<String> lines = new ArrayList<>(List.of("## Stress", "",
-                "How the portfolios' risk and return move when the assumptions are replaced by each scenario's. "
-                        + "Each point has a status: optimal (solved), infeasible (the target is out of reach under "
-                        + "the scenario) or not-solved (the solver failed; the reason is in the Note column)."));
+                "How the portfolios' risk and return move when the assumptions are replaced by each scenario's"
+                        + (proposal ? ": first the proposal (**" + Text.markdown(content.proposal().label())
+                        + "**) and today's holdings as they are, then the least-risk portfolio at each target "
+                        + "re-optimised under the scenario" : "") + ". Each point re-optimised under a scenario has a "
+                        + "status: optimal (solved), infeasible (the target is out of reach under the scenario) or "
+                        + "not-solved (the solver failed; the reason is in the Note column)."));
         if (!content.notSolved().isEmpty()) {
             lines.add("");
             lines.add("**" + content.notSolved().size() + " stress point" + (content.notSolved().size() == 1

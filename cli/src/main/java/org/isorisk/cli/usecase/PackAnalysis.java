@@ -168,7 +168,7 @@ public final class PackAnalysis {
             double[] h = r.holdings().get();
             double[] w = target.weights();
             fullMove = Optional.of(new PackResults.FullMove(TradingLimits.turnover(h, w), r.trading().cost(h, w),
-                    RiskAnalysis.trackingError(u, w, h).value()));
+                    RiskAnalysis.trackingError(u, w, h).value(), r.trading().brokenBy(h, w, u.assets())));
             RebalanceRequest move = rebalanceRequest(r, base);
             try {
                 rebalance = Optional.of(Rebalancer.rebalance(move));

@@ -170,6 +170,7 @@ class PackCommandTests {
         assertTrue(turnover <= 0.20 + 1e-7, "the policy's turnover.max: " + turnover);
         List<String> summary = Files.readAllLines(out.resolve(PackLayout.table("trade_summary")));
         assertTrue(summary.get(0).startsWith("# caution: "), summary.get(0));
+        // the full move to the target portfolio (49.97 %) would break the sample's 20 % turnover limit, and costs apply
         assertTrue(summary.get(5).startsWith("Proposed (after trading limits and costs),"), summary.get(5));
         // one story: the pack's proposal (weights table, risk table) is the rebalance command's proposal
         List<String> weights = Files.readAllLines(out.resolve(PackLayout.table("weights")));

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
+import java.util.Set;
 import org.isorisk.engine.explain.Explain;
 import org.isorisk.engine.model.Group;
 import org.isorisk.engine.model.Mandate;
@@ -57,6 +58,20 @@ class TodaysBreachesTests {
                 new RebalanceObjective.TargetReturn(0.04), null));
         assertTrue(off.notes().stream().anyMatch(n -> n.startsWith("The holding weights add up to 1.000400; they "
                 + "were rescaled")), off.notes().toString());
+    }
+
+    @Test
+    void aMoveNamesTheTradingLimitsItBreaks() {
+        double[] from = {0.10, 0.40, 0.35, 0.15};
+        double[] to = {0.05, 0.40, 0.40, 0.15}; // two-way turnover 10 %: 5 % out of Cash into Domestic Equity
+        List<String> a = RebalancerTests.ASSETS;
+        assertEquals(List.of(), TradingLimits.none(4).brokenBy(from, to, a));
+        assertEquals(List.of(), TradingLimits.none(4).withMaxTurnover(0.10).brokenBy(from, to, a), "at the limit");
+        assertEquals(List.of("turnover", "trade_limit:Cash", "trade_limit:Domestic Equity", "no_trade:Cash"),
+                TradingLimits.none(4).withMaxTurnover(0.09).withMaxTrade(new double[] {0.04, 1, 0.04, 1})
+                        .withNoTrade(Set.of(0, 1)).brokenBy(from, to, a));
+        // the minimum trade size drops small trades, it refuses none
+        assertEquals(List.of(), TradingLimits.none(4).withMinTrade(0.5).brokenBy(from, to, a));
     }
 
     @Test

@@ -102,14 +102,15 @@ public final class PackComposer {
         if (charts.isEmpty() && !results.spec().charts().isEmpty()) {
             notes.add("Charts were asked for but none was drawn.");
         }
+        // the proposal under each scenario first (one story: the portfolio the trades reach), then the targets
         List<Table> stress = new ArrayList<>();
+        if (!results.underStress().isEmpty()) {
+            stress.add(underStressTable(results));
+        }
         results.stress().ifPresent(sr -> {
             stress.add(stressTable(sr, notSolved(results, PackResults.StressRun.AT_TARGETS)));
             notes.addAll(sr.notes());
         });
-        if (!results.underStress().isEmpty()) {
-            stress.add(underStressTable(results));
-        }
         List<Table> appendix = new ArrayList<>();
         results.stressSweep().ifPresent(sr -> {
             appendix.add(stressSweepTable(sr, notSolved(results, PackResults.StressRun.ALONG_FRONTIER)));
@@ -302,7 +303,7 @@ public final class PackComposer {
         // portfolios, in order: minimum variance, targets, tangency, the proposal when it is not a target portfolio
         boolean differs = res.proposalDiffersFromTarget();
         Solution target = res.targetPortfolio();
-        String why = qualifier(res.trading());
+        String why = qualifier(res);
         String proposalLabel = differs ? "Proposed (after " + why + ")" : null;
         List<Solution> sols = new ArrayList<>();
         List<String> labels = new ArrayList<>();
@@ -470,11 +471,29 @@ public final class PackComposer {
     public static final String INEFFICIENT_BRANCH = "on the inefficient branch: its return is below the "
             + "minimum-variance portfolio's, which has less risk";
 
-    /** What keeps the trades from the target portfolio, in words: "trading limits and costs" and the like. */
-    static String qualifier(TradingLimits lim) {
+    /**
+     * What keeps the trades from the target portfolio, in words: "trading limits and costs", "trading limits" or
+     * "trading costs". With a move, the limits count when the full move to the target portfolio would break one or
+     * one of them binds the move (its shadow price is not zero); without a move, whatever the policy sets.
+     */
+    static String qualifier(PackResults res) {
+        TradingLimits lim = res.trading();
+        boolean broken = res.fullMove().map(f -> !f.breaks().isEmpty()).orElse(false);
+        boolean limits = res.rebalance().map(x -> broken || tradingLimitBinds(x)).orElse(lim.restrictsTrading());
+        return limits && lim.hasCosts() ? "trading limits and costs" : limits ? "trading limits"
+                : lim.hasCosts() ? "trading costs" : applies(lim);
+    }
+
+    /** What the policy sets, in words: "trading limits and costs", "trading limits" or "trading costs". */
+    static String applies(TradingLimits lim) {
         return lim.restrictsTrading() && lim.hasCosts() ? "trading limits and costs"
-                : lim.restrictsTrading() ? "trading limits" : lim.hasCosts() ? "trading costs"
-                : "trading limits and costs";
+                : lim.restrictsTrading() ? "trading limits" : "trading costs";
+    }
+
+    /** True when a trading limit (turnover, a trade limit, the no-trade list, the minimum trade) binds the move. */
+    static boolean tradingLimitBinds(RebalanceResult x) {
+        return x.binding().stream().map(Multiplier::constraint).anyMatch(c -> c.equals("turnover")
+                || c.startsWith("trade_limit:") || c.startsWith("no_trade:") || c.startsWith("min_trade:"));
     }
 
     private static String breachCount(int k) {
@@ -504,10 +523,10 @@ public final class PackComposer {
         if (differs) {
             Solution t = res.targetPortfolio();
             out.add(new PackContent.KeyPoint("Target portfolio, side by side", "the least-risk portfolio at the "
-                    + target + " target before " + qualifier(res.trading()) + " has expected return "
+                    + target + " target before " + qualifier(res) + " has expected return "
                     + Explain.percent(t.expectedReturn()) + " and volatility " + Explain.percent(t.volatility())
                     + res.fullMove().map(f -> "; reaching it would need turnover " + Explain.percent(f.turnover()))
-                    .orElse("") + ". The " + qualifier(res.trading()) + " keep the trades from it; the Portfolios "
+                    .orElse("") + ". The " + qualifier(res) + " keep the trades from it; the Portfolios "
                     + "and Weights tables show both.", false));
         }
         PackContent.Portfolio first = portfolios.get(0);
@@ -632,7 +651,7 @@ public final class PackComposer {
             mode = PackContent.Trading.Mode.FULL_MOVE;
             RebalanceResult x = rb.get();
             headline = (lim.restrictsTrading() || lim.hasCosts()
-                    ? "The policy's " + qualifier(lim) + " do not change the answer here, so the trade list is the "
+                    ? "The policy's " + applies(lim) + " do not change the answer here, so the trade list is the "
                     : "No trading limit or cost applies (the policy sets none), so the trade list is the ")
                     + "full move from the current holdings to the least-risk portfolio at the " + target
                     + " target: turnover " + Explain.percent(x.turnover()) + ".";
@@ -644,7 +663,7 @@ public final class PackComposer {
                     + ", with turnover " + Explain.percent(x.turnover())
                     + (Double.isFinite(lim.maxTurnover()) ? " (limit " + Explain.percent(lim.maxTurnover()) + ")" : "")
                     + "; the proposal is the portfolio it reaches. The full move to the target portfolio before "
-                    + qualifier(lim) + " would need turnover " + Explain.percent(fullTurnover) + ".";
+                    + qualifier(res) + " would need turnover " + Explain.percent(fullTurnover) + ".";
         }
 
         String fullLabel = "Full move to the target portfolio (" + target + ")";
@@ -672,8 +691,7 @@ public final class PackComposer {
         String reading = "";
         if (mode == PackContent.Trading.Mode.WITHIN_LIMITS) {
             RebalanceResult x = rb.get();
-            boolean binds = x.binding().stream().map(Multiplier::constraint).anyMatch(c -> c.equals("turnover")
-                    || c.startsWith("trade_limit:") || c.startsWith("no_trade:") || c.startsWith("min_trade:"));
+            boolean binds = tradingLimitBinds(x);
             double fullNet = t.expectedReturn() - fullCost;
             if (binds) {
                 reading = "The trading limits bind: keeping to them" + (lim.hasCosts() ? " and paying the costs" : "")

@@ -124,13 +124,23 @@ public record PackResults(PackSpec spec, AssetUniverse universe, Mandate mandate
     }
 
     /**
-     * The full move from today's holdings to the proposal, priced by the policy's trading limits.
+     * The full move from today's holdings to the target portfolio, priced by the policy's trading limits.
      *
      * @param turnover      two-way turnover {@code Σ|w − w0|}
      * @param cost          the trading costs as a share of the fund (decimal)
-     * @param trackingError the proposal's tracking error against today's holdings (annualised, decimal)
+     * @param trackingError the target portfolio's tracking error against today's holdings (annualised, decimal)
+     * @param breaks        the trading limits the full move would break ({@code TradingLimits.brokenBy}: turnover,
+     *                      trade_limit:&lt;asset&gt;, no_trade:&lt;asset&gt;); empty when it keeps them
      */
-    public record FullMove(double turnover, double cost, double trackingError) {
+    public record FullMove(double turnover, double cost, double trackingError, List<String> breaks) {
+        public FullMove {
+            breaks = breaks == null ? List.of() : List.copyOf(breaks);
+        }
+
+        /** A full move that breaks no trading limit. */
+        public FullMove(double turnover, double cost, double trackingError) {
+            this(turnover, cost, trackingError, List.of());
+        }
     }
 
     /** Which stress run a point belongs to. */
