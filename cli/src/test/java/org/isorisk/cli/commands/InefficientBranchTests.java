@@ -59,6 +59,15 @@ class InefficientBranchTests {
     }
 
     @Test
+    void oneSolveUnderGroupLimitsSaysItToo() {
+        Run low = Run.of(inputs("solve", "--target-return", "0.0475", "--format", "json").toArray(String[]::new));
+        assertEquals(0, low.code(), low.toString());
+        assertTrue(notes(low.json()).contains(Branch.INEFFICIENT_NOTE), notes(low.json()).toString());
+        Run high = Run.of(inputs("solve", "--target-return", "0.06", "--format", "json").toArray(String[]::new));
+        assertFalse(notes(high.json()).contains(Branch.INEFFICIENT_NOTE));
+    }
+
+    @Test
     void theStressSweepUnderGroupLimitsSaysWhichTargetsAreOnTheInefficientBranch() {
         String scenarios = Run.file(dir, "up.yaml", """
                 scenarios:
