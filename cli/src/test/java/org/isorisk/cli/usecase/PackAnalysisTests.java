@@ -266,7 +266,7 @@ class PackAnalysisTests {
         // the comparison shows the full move beside the move within the limit
         Table cmp = t.comparison();
         assertEquals(List.of(PackComposer.CURRENT, "Full move to the target portfolio (5.00 %)",
-                "Proposed (after trading limits and costs)"),
+                "Proposed (after trading limits and costs)"), // the turnover limit binds, and costs apply
                 cmp.rows().stream().map(r -> ((Table.Cell.Text) r.get(0)).value()).toList());
         assertEquals(full, number(cmp, 1, "turnover"), 1e-15);
         assertEquals(direct.turnover(), number(cmp, 2, "turnover"), 0.0);
