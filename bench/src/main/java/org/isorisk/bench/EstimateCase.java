@@ -16,7 +16,7 @@ import java.util.Map;
 import java.util.Random;
 import java.util.stream.Stream;
 import org.isorisk.cli.files.AssumptionFiles;
-import org.isorisk.cli.files.AtomicWrite;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.engine.estimate.CovarianceMethod;
 import org.isorisk.engine.estimate.Estimate;
 import org.isorisk.engine.estimate.EstimationSettings;
@@ -88,7 +88,10 @@ final class EstimateCase implements BenchCase {
                 int[] count = {0};
                 Timing.Result write = Timing.measure(options.warmup(), reps, () -> {
                     Path target = dir.resolve("out-" + n + "-" + count[0]++);
-                    AtomicWrite.folder(target, folder -> AssumptionFiles.estimate(folder, lw));
+                    try (RunFiles run = RunFiles.begin()) {
+                        run.input("history", csv).output("--out-dir", target, RunFiles.Kind.FOLDER, true)
+                                .folder(target, folder -> AssumptionFiles.estimate(folder, lw));
+                    }
                     deleteTree(target);
                     return count[0];
                 });

@@ -5,7 +5,8 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
-import org.isorisk.cli.files.AtomicWrite;
+import org.isorisk.cli.files.OptionPaths;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.json.ResultJson;
 import org.isorisk.cli.options.Format;
 import org.isorisk.cli.options.FormatOption;
@@ -17,8 +18,10 @@ import picocli.CommandLine.Spec;
 
 /**
  * What every command shares: the timer behind {@code timing_ms.total}, the format of its {@code --format} option
- * (mixed in with {@code OutputOptions} or {@code FormatOption}), and {@link #emit} which prints a result in that
- * format to standard output or writes it atomically to {@code --out}.
+ * (mixed in with {@code OutputOptions} or {@code FormatOption}), the run's files ({@link #files}: every
+ * {@code Path} option registered as an input, every {@code @OutputPath} option declared and checked as an output,
+ * before {@link #execute} starts), and {@link #emit} which prints a result in that format to standard output or
+ * writes it atomically to {@code --out}.
  */
 public abstract class BaseCommand implements Callable<Integer>, Reporting {
 
@@ -27,10 +30,30 @@ public abstract class BaseCommand implements Callable<Integer>, Reporting {
 
     private long started;
 
+    private RunFiles files;
+
+    /**
+     * Runs the command: registers its input files and checks its outputs (an output never replaces an input; see
+     * {@link RunFiles}) before {@link #execute} does any work.
+     */
     @Override
     public final Integer call() throws Exception {
         started = System.nanoTime();
-        return execute().code();
+        try (RunFiles f = RunFiles.begin()) {
+            files = f;
+            OptionPaths.declare(spec, f);
+            return execute().code();
+        } finally {
+            files = null;
+        }
+    }
+
+    /** The files of the run in progress: register inputs read along the way, publish results. */
+    protected final RunFiles files() {
+        if (files == null) {
+            throw new IllegalStateException("no run in progress");
+        }
+        return files;
     }
 
     /** The command's work; user errors are thrown as engine exceptions and mapped by the error handler. */
@@ -91,7 +114,7 @@ public abstract class BaseCommand implements Callable<Integer>, Reporting {
             warn(r.warnings());
         }
         if (file.isPresent()) {
-            AtomicWrite.file(file.get(), w -> w.write(text));
+            files().file(file.get(), w -> w.write(text));
             wrote(file.get());
         } else {
             out().print(text);

@@ -2,7 +2,6 @@ package org.isorisk.cli.commands;
 
 import java.nio.file.Path;
 import java.util.Locale;
-import org.isorisk.cli.files.AtomicWrite;
 import org.isorisk.cli.render.Text;
 import org.isorisk.notebooks.chart.ChartFormat;
 import org.isorisk.notebooks.chart.ChartSettings;
@@ -49,15 +48,18 @@ public final class ChartCommand implements Runnable {
      * and says so on stderr (stdout stays the result alone).
      */
     static void writeBeside(BaseCommand cmd, Figure figure, Path file) {
-        writeFile(figure, file, ChartSettings.defaults());
+        writeFile(cmd, figure, file, ChartSettings.defaults());
         cmd.wrote(file);
         cmd.err().flush();
     }
 
-    /** Writes {@code figure} to {@code file} atomically in the format of its extension; returns the format. */
-    static ChartFormat writeFile(Figure figure, Path file, ChartSettings settings) {
+    /**
+     * Writes {@code figure} to {@code file} (an output the command declared) atomically in the format of its
+     * extension; returns the format.
+     */
+    static ChartFormat writeFile(BaseCommand cmd, Figure figure, Path file, ChartSettings settings) {
         ChartFormat format = ChartFormat.fromFileName(file.toString());
-        AtomicWrite.bytes(file, out -> Charts.write(figure, format, settings, out));
+        cmd.files().bytes(file, out -> Charts.write(figure, format, settings, out));
         return format;
     }
 
@@ -66,7 +68,7 @@ public final class ChartCommand implements Runnable {
      * the chart's notices and the caution.
      */
     static void write(BaseCommand cmd, Figure figure, Path file, ChartSettings settings) {
-        ChartFormat format = writeFile(figure, file, settings);
+        ChartFormat format = writeFile(cmd, figure, file, settings);
         StringBuilder sb = new StringBuilder();
         String size = format == ChartFormat.PNG
                 ? String.format(Locale.ROOT, "%d x %d pixels", Math.round(figure.getWidth() * settings.pngScale()),

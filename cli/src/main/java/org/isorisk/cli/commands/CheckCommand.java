@@ -5,7 +5,8 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import org.isorisk.cli.files.AssumptionFiles;
-import org.isorisk.cli.files.AtomicWrite;
+import org.isorisk.cli.files.OutputPath;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.Decimal;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutputOptions;
@@ -45,6 +46,7 @@ public final class CheckCommand extends BaseCommand {
                     + "volatilities kept. Writes to --out-dir; never changes the input.")
     boolean repair;
 
+    @OutputPath(RunFiles.Kind.FOLDER)
     @Option(names = "--out-dir", paramLabel = "DIR",
             description = "With --repair: folder for the repaired matrix and the report, written as a whole (a new "
                     + "or empty folder, or one isorisk wrote before).")
@@ -81,10 +83,6 @@ public final class CheckCommand extends BaseCommand {
                     .fix("give --out-dir DIR").build();
         }
         Path file = cov.orElseGet(corr::get);
-        if (file.toAbsolutePath().normalize().startsWith(outDir.toAbsolutePath().normalize())) {
-            throw InputException.of("the output folder holds the input, and is replaced as a whole")
-                    .file(file.toString()).fix("choose another --out-dir").build();
-        }
         RepairSettings settings = minEigenvalue == null ? RepairSettings.defaults()
                 : RepairSettings.defaults().withMinEigenvalue(minEigenvalue);
         if (minEigenvalue != null && !(minEigenvalue >= 0 && minEigenvalue < 1)) {
@@ -95,11 +93,11 @@ public final class CheckCommand extends BaseCommand {
         RepairResult r = cov.isPresent()
                 ? Repair.covariance(m.assets(), m.matrix(), settings, m.source())
                 : Repair.correlation(m.assets(), m.matrix(), settings, m.source());
-        List<String> files = new ArrayList<>();
+        List<String> written = new ArrayList<>();
         if (r.changed()) {
-            AtomicWrite.folder(outDir, dir -> files.addAll(AssumptionFiles.repair(dir, r, m.source())));
+            files().folder(outDir, dir -> written.addAll(AssumptionFiles.repair(dir, r, m.source())));
         }
-        emit(new RepairView(r, m.source(), outDir, files), Optional.empty());
+        emit(new RepairView(r, m.source(), outDir, written), output.out());
         return ExitCode.OK;
     }
 }

@@ -9,7 +9,9 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.stream.Stream;
+import org.isorisk.cli.files.OutputPath;
 import org.isorisk.cli.files.PackFolder;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.ProgressLine;
 import org.isorisk.cli.render.StepProgress;
@@ -39,6 +41,7 @@ public final class DemoCommand extends BaseCommand {
 
     private static final List<String> REQUIRED = List.of("expected_returns.csv", "covariance.csv", "holdings.csv");
 
+    @OutputPath(RunFiles.Kind.FOLDER)
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "isorisk-demo",
             description = "Folder for the pack (default: ${DEFAULT-VALUE}); an earlier pack there is replaced, any "
                     + "other non-empty folder is refused.")
@@ -74,8 +77,8 @@ public final class DemoCommand extends BaseCommand {
             PackCommand.Made made;
             try (StepProgress progress = quiet ? null
                     : new StepProgress(err(), ProgressLine.stderrIsTerminal(), spec.name())) {
-                made = PackCommand.make(u, policy, dir.resolve("holdings.csv"), src.packFile(), Units.DECIMAL, out,
-                        true, extra, toolVersion(), progress, this::warn);
+                made = PackCommand.make(files(), u, policy, dir.resolve("holdings.csv"), src.packFile(),
+                        Units.DECIMAL, out, true, extra, toolVersion(), progress, this::warn);
             }
             out().print(made.summary());
             out().flush();

@@ -6,7 +6,8 @@ import java.util.List;
 import java.util.Optional;
 import java.util.function.Function;
 import org.isorisk.cli.files.AssumptionFiles;
-import org.isorisk.cli.files.AtomicWrite;
+import org.isorisk.cli.files.OutputPath;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.Decimal;
 import org.isorisk.cli.options.FormatOption;
 import org.isorisk.cli.render.EstimateView;
@@ -115,9 +116,11 @@ public final class EstimateCommand extends BaseCommand {
                     + "Default: ${DEFAULT-VALUE}.")
     int staleRun;
 
+    @OutputPath(RunFiles.Kind.FOLDER)
     @Option(names = "--out-dir", required = true, paramLabel = "DIR",
             description = "Folder for the tables and the report, written as a whole: a new or empty folder, or one "
-                    + "isorisk wrote before (it is replaced); any other folder is left alone.")
+                    + "isorisk wrote before (it is replaced); any other folder is left alone, and so is a folder that "
+                    + "holds an input.")
     Path outDir;
 
     @Mixin
@@ -140,7 +143,6 @@ public final class EstimateCommand extends BaseCommand {
         EstimationSettings s = new EstimationSettings(type, freq, periodsPerYear == null ? 0 : periodsPerYear, m,
                 decay == null ? Double.NaN : decay, halfLife == null ? Double.NaN : halfLife, miss, staleRun,
                 EstimationSettings.DEFAULT_FEW_PER_ASSET);
-        guardOutput();
 
         long t0 = System.nanoTime();
         History h = HistoryReader.read(history, k, dates);
@@ -148,10 +150,10 @@ public final class EstimateCommand extends BaseCommand {
         long t1 = System.nanoTime();
         Estimate e = Estimator.estimate(h, s, meanSpec);
         long t2 = System.nanoTime();
-        List<String> files = new ArrayList<>();
-        AtomicWrite.folder(outDir, dir -> files.addAll(AssumptionFiles.estimate(dir, e)));
+        List<String> written = new ArrayList<>();
+        files().folder(outDir, dir -> written.addAll(AssumptionFiles.estimate(dir, e)));
         long t3 = System.nanoTime();
-        emit(new EstimateView(e, outDir, files, (t1 - t0) / 1e6, (t2 - t1) / 1e6, (t3 - t2) / 1e6), Optional.empty());
+        emit(new EstimateView(e, outDir, written, (t1 - t0) / 1e6, (t2 - t1) / 1e6, (t3 - t2) / 1e6), Optional.empty());
         return ExitCode.OK;
     }
 
@@ -188,17 +190,6 @@ public final class EstimateCommand extends BaseCommand {
             default:
                 throw InputException.of("unknown --mean").value(mean).fix("use one of historical, file, implied")
                         .build();
-        }
-    }
-
-    /** The output folder is replaced as a whole, so it must not hold an input. */
-    private void guardOutput() {
-        Path dir = outDir.toAbsolutePath().normalize();
-        for (Path in : new Path[] {history, expectedReturns, referenceWeights}) {
-            if (in != null && in.toAbsolutePath().normalize().startsWith(dir)) {
-                throw InputException.of("the output folder holds an input, and is replaced as a whole")
-                        .file(in.toString()).fix("choose another --out-dir").build();
-            }
         }
     }
 

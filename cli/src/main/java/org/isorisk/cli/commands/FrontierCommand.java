@@ -4,6 +4,8 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.isorisk.cli.options.InputOptions;
+import org.isorisk.cli.files.OutputPath;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.FrontierView;
@@ -63,6 +65,7 @@ public final class FrontierCommand extends BaseCommand {
                     + "return; critical line method).")
     boolean inefficient;
 
+    @OutputPath(RunFiles.Kind.CHART)
     @Option(names = "--chart", paramLabel = "FILE",
             description = "Also draw the frontier chart into FILE; the extension gives the format: .png (twice the "
                     + "chart's size, for print), .svg or .pdf.")

@@ -10,7 +10,9 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import org.isorisk.cli.files.PackFiles;
+import org.isorisk.cli.files.OutputPath;
 import org.isorisk.cli.files.PackFolder;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.ProgressLine;
@@ -76,6 +78,7 @@ public final class PackCommand extends BaseCommand {
                     + "(see the README, 'The pack file').")
     Path packFile;
 
+    @OutputPath(value = RunFiles.Kind.FOLDER, force = "--force")
     @Option(names = "--out", paramLabel = "DIR", required = true,
             description = "The folder to create. It must not exist or be empty, unless --force is given.")
     Path out;
@@ -93,8 +96,8 @@ public final class PackCommand extends BaseCommand {
         LoadedUniverse u = inputs.load(true);
         Made made;
         try (StepProgress progress = progress(quiet)) {
-            made = make(u, policyOption, holdings, packFile, inputs.units(), out, force, List.of(), toolVersion(),
-                    progress, this::warn);
+            made = make(files(), u, policyOption, holdings, packFile, inputs.units(), out, force, List.of(),
+                    toolVersion(), progress, this::warn);
         }
         out().print(made.summary());
         out().flush();
@@ -125,14 +128,15 @@ public final class PackCommand extends BaseCommand {
     /**
      * Reads the policy, holdings and pack file, runs the analysis and writes the folder; shared with {@code demo}.
      *
+     * @param files       the run's files: {@code out} is one of its declared outputs
      * @param extraInputs further files to record and copy (e.g. the demo's README), as role and path
      * @param version     isorisk's version, for the manifest and the run record ({@link BaseCommand#toolVersion})
      * @param progress    where the steps are shown (stderr); null for none
      * @param warnings    prints the inputs' warnings as soon as they are read (stderr)
      */
-    static Made make(LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile, Units units, Path out,
-                     boolean force, List<PackFolder.Input> extraInputs, String version, StepProgress progress,
-                     java.util.function.Consumer<List<String>> warnings) {
+    static Made make(RunFiles files, LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile,
+                     Units units, Path out, boolean force, List<PackFolder.Input> extraInputs, String version,
+                     StepProgress progress, java.util.function.Consumer<List<String>> warnings) {
         PackAnalysis.Steps steps = progress == null ? PackAnalysis.Steps.NONE : new PackAnalysis.Steps() {
             @Override
             public void step(String what) {
@@ -188,7 +192,8 @@ public final class PackCommand extends BaseCommand {
         List<Scenario> scenarios = new ArrayList<>();
         if (spec.scenarios().isPresent()) {
             Path file = packFile.toAbsolutePath().getParent().resolve(spec.scenarios().get());
-            scenarios.addAll(ScenarioFile.read(file, u.assets(), loaded.groups(), null));
+            scenarios.addAll(ScenarioFile.read(RunFiles.reading("scenarios file named in --pack-file", file),
+                    u.assets(), loaded.groups(), null));
             more.add(new PackFolder.Input("scenarios", file));
         }
         more.addAll(extraInputs);
@@ -241,7 +246,7 @@ public final class PackCommand extends BaseCommand {
         }
         String summary = summary(content, out, notes);
         folder.add("summary.txt", os -> os.write(summary.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
-        PackFolder.Result r = folder.commit(out, force);
+        PackFolder.Result r = folder.commit(files, out);
         return new Made(r.folder(), content, r.files().size(), summary, shown);
     }
 

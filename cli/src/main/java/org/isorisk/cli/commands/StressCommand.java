@@ -9,6 +9,8 @@ import java.util.Map;
 import org.isorisk.cli.options.Decimal;
 import org.isorisk.cli.options.Fingerprint;
 import org.isorisk.cli.options.InputOptions;
+import org.isorisk.cli.files.OutputPath;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.ProgressLine;
@@ -82,6 +84,7 @@ public final class StressCommand extends BaseCommand {
     @Option(names = "--quiet", description = "No progress on stderr.")
     boolean quiet;
 
+    @OutputPath(RunFiles.Kind.CHART)
     @Option(names = "--chart", paramLabel = "FILE",
             description = "Also draw the stress overlay (minimum volatility against the target, base and every "
                     + "scenario) into FILE; the extension gives the format: .png, .svg or .pdf.")
@@ -106,7 +109,8 @@ public final class StressCommand extends BaseCommand {
         List<Scenario> list = new ArrayList<>();
         Provenance prov = u.provenance();
         if (scenarios != null) {
-            list.addAll(ScenarioFile.read(scenarios, assets, groups, f -> inputs.covarianceFor(f, warnings)));
+            list.addAll(ScenarioFile.read(scenarios, assets, groups, f -> inputs.covarianceFor(
+                    RunFiles.reading("covariance file named in --scenarios", f), warnings)));
             prov = prov.withInput(Fingerprint.of("scenarios", scenarios, "--scenarios"));
         }
         int n = assets.size();

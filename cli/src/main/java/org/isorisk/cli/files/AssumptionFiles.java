@@ -84,20 +84,18 @@ public final class AssumptionFiles {
         }
     }
 
-    /** Writes a square matrix with a header row and a first column of asset names. The writer is not closed. */
+    /**
+     * Writes a square matrix with a header row and a first column of asset names (the names guarded against
+     * spreadsheet formulas, as every text cell the CSV writer writes). The writer is not closed.
+     */
     public static void writeMatrix(Writer w, List<String> assets, double[][] m) throws IOException {
-        StringBuilder sb = new StringBuilder("asset");
-        for (String a : assets) {
-            sb.append(',').append(CsvWriter.cell(a));
-        }
-        w.write(sb.append('\n').toString());
+        CsvWriter c = new CsvWriter(w);
+        List<Object> header = new ArrayList<>(assets.size() + 1);
+        header.add("asset");
+        header.addAll(assets);
+        c.row(header);
         for (int i = 0; i < assets.size(); i++) {
-            sb.setLength(0);
-            sb.append(CsvWriter.cell(assets.get(i)));
-            for (int j = 0; j < assets.size(); j++) {
-                sb.append(',').append(CsvWriter.number(m[i][j]));
-            }
-            w.write(sb.append('\n').toString());
+            c.nameRow(assets.get(i), m[i]);
         }
     }
 

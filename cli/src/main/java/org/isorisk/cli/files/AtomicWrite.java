@@ -5,7 +5,6 @@ import java.io.OutputStream;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
@@ -17,12 +16,13 @@ import java.util.stream.Stream;
 import org.isorisk.engine.error.InputException;
 
 /**
- * The one place where results become files: everything is written to a temporary file (or folder) beside the
- * target and moved into place at the end, so that a reader never sees a half-written result and a failure
- * leaves the previous version untouched. Files and folders share one mechanism for that ({@code Publication}):
- * each write registers its temporary sibling, and the one shutdown hook (Ctrl-C, kill) removes every temporary
- * still being written and puts back an earlier output folder moved aside, while a rename already under way
- * finishes first.
+ * The one place where results become files, reached only through {@link RunFiles} (which first checks that the
+ * target is a declared output that replaces no input of the run): everything is written to a temporary file (or
+ * folder) beside the target and moved into place at the end, so that a reader never sees a half-written result and
+ * a failure leaves the previous version untouched. Files and folders share one mechanism for that
+ * ({@code Publication}): each write registers its temporary sibling, and the one shutdown hook (Ctrl-C, kill)
+ * removes every temporary still being written and puts back an earlier output folder moved aside, while a rename
+ * already under way finishes first.
  */
 public final class AtomicWrite {
     private AtomicWrite() {
@@ -55,6 +55,10 @@ public final class AtomicWrite {
 
     /** Marker file inside every output folder this class writes; only such folders are replaced. */
     public static final String MARKER = ".isorisk-output";
+    /** The refusal of an existing folder that isorisk did not write. */
+    static final String NOT_OURS = "the output folder exists and was not written by isorisk, so it is left alone";
+    /** The refusal of an existing earlier output that may not be replaced. */
+    static final String NOT_EMPTY = "the output folder exists and is not empty";
 
     /** Writes text to a {@link Writer}. */
     @FunctionalInterface
@@ -75,11 +79,11 @@ public final class AtomicWrite {
     }
 
     /**
-     * Writes {@code target} (UTF-8) atomically; parent folders are created.
+     * Writes {@code target} (UTF-8) atomically; its folder must exist.
      *
      * @throws InputException when the target cannot be written (named, with a fix)
      */
-    public static void file(Path target, TextBody body) {
+    static void file(Path target, TextBody body) {
         writeFile(target, "result.json", tmp -> {
             try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8, StandardOpenOption.WRITE)) {
                 body.write(w);
@@ -88,11 +92,11 @@ public final class AtomicWrite {
     }
 
     /**
-     * Writes the binary file {@code target} atomically (a chart, an image); parent folders are created.
+     * Writes the binary file {@code target} atomically (a chart, an image); its folder must exist.
      *
      * @throws InputException when the target cannot be written (named, with a fix)
      */
-    public static void bytes(Path target, BinaryBody body) {
+    static void bytes(Path target, BinaryBody body) {
         writeFile(target, "chart.png", tmp -> {
             try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp,
                     StandardOpenOption.WRITE))) {
@@ -144,7 +148,7 @@ public final class AtomicWrite {
      * (it holds {@link #MARKER}); any other existing folder is refused, so that nothing of the user's is deleted.
      * Same as {@code folder(target, true, body)}.
      */
-    public static void folder(Path target, FolderBody body) {
+    static void folder(Path target, FolderBody body) {
         folder(target, true, body);
     }
 
@@ -160,7 +164,7 @@ public final class AtomicWrite {
      * @param replaceEarlier replace an earlier isorisk output (the command line's {@code --force})
      * @throws InputException when the target cannot be used or written (named, with a fix)
      */
-    public static void folder(Path target, boolean replaceEarlier, FolderBody body) {
+    static void folder(Path target, boolean replaceEarlier, FolderBody body) {
         Path abs = target.toAbsolutePath();
         Path parent = parentOf(abs, target);
         boolean exists = Files.exists(abs);
@@ -170,11 +174,11 @@ public final class AtomicWrite {
         }
         boolean nonEmpty = exists && !isEmpty(abs);
         if (nonEmpty && !Files.exists(abs.resolve(MARKER))) {
-            throw InputException.of("the output folder exists and was not written by isorisk, so it is left alone")
+            throw InputException.of(NOT_OURS)
                     .file(target.toString()).fix("choose another --out, or empty the folder").build();
         }
         if (nonEmpty && !replaceEarlier) {
-            throw InputException.of("the output folder exists and is not empty").file(target.toString())
+            throw InputException.of(NOT_EMPTY).file(target.toString())
                     .fix("choose another --out, or add --force to replace the earlier output").build();
         }
         Path staging = parent.resolve("." + abs.getFileName() + ".tmp-" + unique());
@@ -311,19 +315,15 @@ public final class AtomicWrite {
         return ProcessHandle.current().pid() + "-" + Long.toHexString(System.nanoTime());
     }
 
+    /** The target's folder, which must exist (the command line checks it before the work starts). */
     private static Path parentOf(Path abs, Path target) {
         Path parent = abs.getParent();
         if (parent == null) {
             throw InputException.of("the output path has no parent folder").file(target.toString()).build();
         }
-        try {
-            Files.createDirectories(parent);
-        } catch (FileAlreadyExistsException e) {
-            throw InputException.of("a file stands where the output's folder should be").file(parent.toString())
-                    .fix("choose another --out").build();
-        } catch (IOException e) {
-            throw InputException.of("the output's folder cannot be created (" + reason(e) + ")").file(parent.toString())
-                    .fix("check the path and permissions, or choose another --out").build();
+        if (!Files.isDirectory(parent)) {
+            throw InputException.of("the output's folder does not exist").file(parent.toString())
+                    .fix("create it first, or choose another --out").build();
         }
         return parent;
     }
@@ -350,7 +350,7 @@ public final class AtomicWrite {
         }
     }
 
-    private static boolean isEmpty(Path dir) {
+    static boolean isEmpty(Path dir) {
         try (Stream<Path> s = Files.list(dir)) {
             return s.findAny().isEmpty();
         } catch (IOException e) {

@@ -29,15 +29,15 @@ import org.isorisk.notebooks.PackLayout;
 
 /**
  * A pack folder: its files are added as writers of bytes under relative names; {@link #commit} writes them
- * through {@link AtomicWrite#folder(Path, boolean, AtomicWrite.FolderBody)} (the project's one place for atomic
+ * through {@link RunFiles#folder} and {@code AtomicWrite} (the project's one place for atomic
  * folder moves: a temporary sibling renamed into place, a shutdown hook for Ctrl-C) and adds
  * {@code manifest.json}: tool, version, date, parameters, and the SHA-256 of every input and of every file of
  * the folder, hashed as it is written. So the target either does not change or appears complete, and inputs are
- * only ever read.
+ * only ever read; {@link RunFiles} refuses a target that holds one.
  *
  * <p>Rules for an existing target: an empty folder is replaced; a non-empty one only with {@code force}, and
  * then only when it is an earlier isorisk output (it holds {@link AtomicWrite#MARKER}), so that a typo in
- * {@code --out} cannot delete an unrelated folder; a target that contains one of the inputs is refused.
+ * {@code --out} cannot delete an unrelated folder; a target that holds one of the inputs is refused.
  */
 public final class PackFolder {
 
@@ -121,29 +121,22 @@ public final class PackFolder {
 
     /**
      * Writes every file and the manifest into a temporary sibling of {@code target}, then renames it onto
-     * {@code target}.
+     * {@code target}, through the run's files: the inputs recorded here are registered with them first, so the
+     * target may hold none of them, and an existing earlier pack is replaced only as the target's declaration
+     * allows ({@code --force}).
      *
+     * @param run    the run's files, in which {@code target} is a declared folder output
      * @param target the pack folder to create (its parent must exist)
-     * @param force  replace an existing non-empty pack folder
-     * @throws InputException when the target cannot be used (exists without {@code force}, is a file, is not an
-     *                        earlier pack, contains an input) or an input cannot be read
+     * @throws InputException when the target cannot be used (exists and may not be replaced, is a file, is not an
+     *                        earlier pack, holds an input) or an input cannot be read
      */
-    public Result commit(Path target, boolean force) {
-        Path abs = target.toAbsolutePath().normalize();
-        if (abs.getParent() == null || abs.getFileName() == null) {
-            throw InputException.of("the pack cannot be the root folder").file(target.toString())
-                    .fix("give --out a folder name such as committee-pack").build();
-        }
+    public Result commit(RunFiles run, Path target) {
         for (Input in : inputs) {
-            Path p = in.path().toAbsolutePath().normalize();
-            if (p.startsWith(abs)) {
-                throw InputException.of("the pack folder contains an input (" + in.role() + ")").file(target.toString())
-                        .value(in.path()).fix("choose an --out folder that holds none of the inputs").build();
-            }
+            run.input(in.role() + " file", in.path());
         }
         Map<String, String> inputHashes = inputHashes();
         List<Written> written = new ArrayList<>();
-        AtomicWrite.folder(target, force, staging -> {
+        run.folder(target, staging -> {
             // the marker that makes this folder an isorisk output (AtomicWrite writes it) is listed too
             Path marker = staging.resolve(AtomicWrite.MARKER);
             written.add(new Written(AtomicWrite.MARKER, Files.size(marker), sha256(marker)));
@@ -152,7 +145,7 @@ public final class PackFolder {
             }
             written.add(writeOne(staging, PackLayout.MANIFEST, out -> manifest(out, inputHashes, written)));
         });
-        return new Result(abs, written, inputHashes);
+        return new Result(target.toAbsolutePath().normalize(), written, inputHashes);
     }
 
     private static Written writeOne(Path root, String relative, Content content) throws IOException {

@@ -1,6 +1,8 @@
 package org.isorisk.cli.options;
 
 import java.nio.file.Path;
+import org.isorisk.cli.files.OutputPath;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.engine.io.Provenance;
 import org.isorisk.notebooks.chart.ChartContext;
 import org.isorisk.notebooks.chart.ChartFormat;
@@ -14,6 +16,7 @@ import picocli.CommandLine.Option;
  */
 public final class ChartFileOptions {
 
+    @OutputPath(RunFiles.Kind.CHART)
     @Option(names = "--out", paramLabel = "FILE", required = true,
             description = "The chart file; its extension gives the format: .png, .svg or .pdf.")
     Path out;

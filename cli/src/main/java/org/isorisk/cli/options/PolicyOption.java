@@ -5,6 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PolicyReader;
@@ -62,6 +63,7 @@ public final class PolicyOption {
         if (policy == null) {
             return new Loaded(inputs, Optional.empty(), null);
         }
+        PolicyReader.boundsFile(policy).ifPresent(f -> RunFiles.reading("bounds file named in --policy", f));
         Policy p = PolicyReader.read(policy, inputs.assets());
         SourceFile source = Fingerprint.of("policy", policy, "--policy");
         LoadedUniverse with = new LoadedUniverse(inputs.universe(), inputs.hasExpectedReturns(), inputs.spectrum(),

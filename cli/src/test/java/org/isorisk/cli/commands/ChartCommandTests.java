@@ -37,7 +37,7 @@ class ChartCommandTests {
     void riskContributionsAreDrawnIntoAPngAtTwiceTheChartSize() throws IOException {
         String prop = Run.file(dir, "proposal.csv", "asset,weight\nGovernment Bonds,0.4\nDomestic Equity,0.3\n"
                 + "Foreign Developed Equity,0.3\n");
-        Path png = dir.resolve("charts/risk.png");
+        Path png = Files.createDirectories(dir.resolve("charts")).resolve("risk.png");
         Run r = Run.of("chart", "risk-contributions", "--expected-returns", mu, "--covariance", cov, "--weights", prop,
                 "--current", holdings, "--out", png.toString());
         assertEquals(0, r.code(), r.toString());

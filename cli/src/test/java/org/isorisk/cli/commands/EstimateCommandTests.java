@@ -115,7 +115,9 @@ class EstimateCommandTests {
                 r.err());
         r = Run.of("estimate", "--history", good, "--kind", "prices", "--out-dir", dir.toString());
         assertEquals(2, r.code(), r.toString());
-        assertTrue(r.err().contains("the output folder holds an input"), r.err());
+        assertEquals("isorisk: error: " + dir + ": the --out-dir folder holds the --history file " + good
+                + ", and would be replaced as a whole; an output never replaces an input of the same run; fix: choose "
+                + "another --out-dir folder that holds none of the inputs\n", r.err());
         r = Run.of("estimate", "--history", good, "--kind", "prices", "--method", "ewma", "--frequency", "monthly",
                 "--out-dir", out.toString(), "--format", "json");
         assertEquals(2, r.code(), r.toString());

@@ -193,7 +193,7 @@ class SolveCommandTests {
 
     @Test
     void outWritesTheFileAtomicallyAndPrintsNothingOnStdout() throws IOException {
-        Path target = dir.resolve("results").resolve("solve.json");
+        Path target = Files.createDirectories(dir.resolve("results")).resolve("solve.json");
         Run r = Run.of("solve", "--expected-returns", mu, "--covariance", cov, "--format", "json", "--out",
                 target.toString());
         assertEquals(0, r.code(), r.toString());

@@ -30,6 +30,14 @@ class PackFolderTests {
         return PackFiles.addTo(f, Fixtures.content(Fixtures.PLAIN));
     }
 
+    /** Commits {@code f} as a command run does: {@code target} declared as the run's {@code --out} folder. */
+    static PackFolder.Result commit(PackFolder f, Path target, boolean force) {
+        try (RunFiles run = RunFiles.begin()) {
+            run.output("--out", target, RunFiles.Kind.FOLDER, force);
+            return f.commit(run, target);
+        }
+    }
+
     private static Path input(Path dir) throws IOException {
         Path in = dir.resolve("inputs");
         Files.createDirectories(in);
@@ -48,7 +56,7 @@ class PackFolderTests {
     void theManifestListsEveryFileWithItsSha256(@TempDir Path dir) throws IOException {
         Path in = input(dir);
         Path target = dir.resolve("pack");
-        PackFolder.Result r = folder(in).commit(target, false);
+        PackFolder.Result r = commit(folder(in), target, false);
         JsonNode m = new ObjectMapper().readTree(target.resolve(PackLayout.MANIFEST).toFile());
         assertEquals("isorisk", m.get("tool").asText());
         assertEquals("0.1.0-test", m.get("tool_version").asText());
@@ -86,10 +94,10 @@ class PackFolderTests {
     void anEarlierPackIsLeftAloneWithoutForce(@TempDir Path dir) throws IOException {
         Path in = input(dir);
         Path target = dir.resolve("pack");
-        folder(in).commit(target, false);
+        commit(folder(in), target, false);
         List<String> before = listing(dir);
         String manifest = Files.readString(target.resolve(PackLayout.MANIFEST));
-        InputException e = assertThrows(InputException.class, () -> folder(in).commit(target, false));
+        InputException e = assertThrows(InputException.class, () -> commit(folder(in), target, false));
         assertTrue(e.getMessage().contains("the output folder exists and is not empty"), e.getMessage());
         assertTrue(e.getMessage().contains("add --force"), e.getMessage());
         assertEquals(manifest, Files.readString(target.resolve(PackLayout.MANIFEST)));
@@ -100,16 +108,16 @@ class PackFolderTests {
     void forceReplacesAnEarlierPackButNotAnUnrelatedFolder(@TempDir Path dir) throws IOException {
         Path in = input(dir);
         Path target = dir.resolve("pack");
-        folder(in).commit(target, false);
+        commit(folder(in), target, false);
         Files.writeString(target.resolve("stale.txt"), "old");
-        folder(in).commit(target, true);
+        commit(folder(in), target, true);
         assertFalse(Files.exists(target.resolve("stale.txt")), "the old pack is replaced whole");
         assertTrue(Files.exists(target.resolve(PackLayout.NOTEBOOK)));
 
         Path other = dir.resolve("other");
         Files.createDirectories(other);
         Files.writeString(other.resolve("precious.txt"), "keep");
-        InputException e = assertThrows(InputException.class, () -> folder(in).commit(other, true));
+        InputException e = assertThrows(InputException.class, () -> commit(folder(in), other, true));
         assertTrue(e.getMessage().contains("was not written by isorisk, so it is left alone"), e.getMessage());
         assertEquals("keep", Files.readString(other.resolve("precious.txt")));
         try (Stream<Path> s = Files.list(dir)) {
@@ -122,7 +130,7 @@ class PackFolderTests {
     void anEmptyFolderIsFilled(@TempDir Path dir) throws IOException {
         Path target = dir.resolve("pack");
         Files.createDirectories(target);
-        folder(input(dir)).commit(target, false);
+        commit(folder(input(dir)), target, false);
         assertTrue(Files.exists(target.resolve(PackLayout.MANIFEST)));
     }
 
@@ -135,7 +143,7 @@ class PackFolderTests {
             throw new IllegalStateException("simulated failure while writing");
         });
         Path target = dir.resolve("pack");
-        assertThrows(IllegalStateException.class, () -> f.commit(target, false));
+        assertThrows(IllegalStateException.class, () -> commit(f, target, false));
         assertFalse(Files.exists(target));
         try (Stream<Path> s = Files.list(dir)) {
             assertEquals(List.of("inputs"), s.map(p -> p.getFileName().toString()).toList());
@@ -172,13 +180,13 @@ class PackFolderTests {
     void aFailureWhileReplacingKeepsTheEarlierPack(@TempDir Path dir) throws IOException {
         Path in = input(dir);
         Path target = dir.resolve("pack");
-        folder(in).commit(target, false);
+        commit(folder(in), target, false);
         String manifest = Files.readString(target.resolve(PackLayout.MANIFEST));
         PackFolder f = folder(in);
         f.add("zz-broken.txt", out -> {
             throw new IOException("disk full (simulated)");
         });
-        InputException e = assertThrows(InputException.class, () -> f.commit(target, true));
+        InputException e = assertThrows(InputException.class, () -> commit(f, target, true));
         assertTrue(e.getMessage().contains("cannot be written") && e.getMessage().contains("disk full (simulated)"), e.getMessage());
         assertEquals(manifest, Files.readString(target.resolve(PackLayout.MANIFEST)));
     }
@@ -188,7 +196,7 @@ class PackFolderTests {
         Path in = input(dir);
         Files.setLastModifiedTime(in, FileTime.fromMillis(1_000_000_000_000L));
         byte[] before = Files.readAllBytes(in);
-        folder(in).commit(dir.resolve("pack"), false);
+        commit(folder(in), dir.resolve("pack"), false);
         assertEquals(new String(before, StandardCharsets.UTF_8), Files.readString(in));
         assertEquals(1_000_000_000_000L, Files.getLastModifiedTime(in).toMillis());
     }
@@ -197,15 +205,22 @@ class PackFolderTests {
     void aTargetThatHoldsAnInputIsRefused(@TempDir Path dir) throws IOException {
         Path in = input(dir);
         Path target = in.getParent();
-        InputException e = assertThrows(InputException.class, () -> folder(in).commit(target, true));
-        assertTrue(e.getMessage().contains("contains an input"), e.getMessage());
+        // as in a command run: the inputs of the options are registered before the outputs are declared
+        InputException e = assertThrows(InputException.class, () -> {
+            try (RunFiles run = RunFiles.begin()) {
+                run.input("expected-returns file", in).output("--out", target, RunFiles.Kind.FOLDER, true);
+            }
+        });
+        assertEquals(target + ": the --out folder holds the expected-returns file " + in + ", and would be "
+                + "replaced as a whole; an output never replaces an input of the same run; fix: choose another --out "
+                + "folder that holds none of the inputs", e.getMessage());
         assertTrue(Files.exists(in));
     }
 
     @Test
     void aMissingInputIsReportedByNameBeforeAnythingIsWritten(@TempDir Path dir) {
         PackFolder f = folder(dir.resolve("nope.csv"));
-        InputException e = assertThrows(InputException.class, () -> f.commit(dir.resolve("pack"), false));
+        InputException e = assertThrows(InputException.class, () -> commit(f, dir.resolve("pack"), false));
         assertTrue(e.getMessage().contains("nope.csv"), e.getMessage());
         assertFalse(Files.exists(dir.resolve("pack")));
     }

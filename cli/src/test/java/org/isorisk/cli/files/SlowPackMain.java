@@ -24,6 +24,6 @@ public final class SlowPackMain {
                 Thread.currentThread().interrupt();
             }
         });
-        f.commit(Path.of(args[0]), false);
+        PackFolderTests.commit(f, Path.of(args[0]), false);
     }
 }

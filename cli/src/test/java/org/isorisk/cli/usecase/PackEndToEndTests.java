@@ -15,6 +15,7 @@ import java.util.List;
 import java.util.Optional;
 import org.isorisk.cli.files.PackFiles;
 import org.isorisk.cli.files.PackFolder;
+import org.isorisk.cli.files.RunFiles;
 import org.isorisk.engine.explain.Caution;
 import org.isorisk.engine.model.SolverSettings;
 import org.isorisk.notebooks.ExternalTools;
@@ -37,7 +38,11 @@ class PackEndToEndTests {
     private static Path write(Path dir, PackSpec spec, PackAnalysisTests.Outcome o) {
         PackFolder f = new PackFolder("0.1.0-test", OffsetDateTime.parse("2025-06-30T12:00:00Z"))
                 .parameters(spec.toJson());
-        return PackFiles.addTo(f, o.content()).commit(dir.resolve("pack"), false).folder();
+        Path target = dir.resolve("pack");
+        try (RunFiles run = RunFiles.begin()) {
+            run.output("--out", target, RunFiles.Kind.FOLDER, false);
+            return PackFiles.addTo(f, o.content()).commit(run, target).folder();
+        }
     }
 
     /** Ids of the notebook's table cells, in order. */

@@ -29,6 +29,11 @@ import org.isorisk.engine.error.InputException;
  * UTF-16 and other non-UTF-8 text, blank or duplicate header names, rows with fewer cells than the header or
  * with extra non-empty cells (a decimal comma such as {@code 0,05} splits a cell in two and is named as such),
  * unterminated quotes and text after a closing quote.
+ *
+ * <p>Read back as written: the project's CSV writer guards text cells that a spreadsheet would run as a formula
+ * with one leading apostrophe (a cell starting with {@code =}, {@code +}, {@code -}, {@code @}, a tab or a carriage
+ * return, possibly after apostrophes); this reader removes that one apostrophe from every cell ({@link #unguard})
+ * and from the text after each comma of a {@code # key: value} line, so names come back as they were given.
  */
 public final class Csv {
     private Csv() {
@@ -173,7 +178,7 @@ public final class Csv {
                     continue;
                 }
                 if (c == ',') {
-                    cells.add(wasQuoted ? cur.toString() : cur.toString().strip());
+                    cells.add(unguard(wasQuoted ? cur.toString() : cur.toString().strip()));
                     quoted.add(wasQuoted);
                     cur.setLength(0);
                     wasQuoted = false;
@@ -214,11 +219,52 @@ public final class Csv {
                 throw InputException.of("a quoted cell opened in this row is never closed").file(source.path()).row(row)
                         .fix("add the closing quote (\")").build();
             }
-            cells.add(wasQuoted ? cur.toString() : cur.toString().strip());
+            cells.add(unguard(wasQuoted ? cur.toString() : cur.toString().strip()));
             quoted.add(wasQuoted);
             out.add(new Record(row, cells, quoted, null));
         }
         return out;
+    }
+
+    /**
+     * Undoes the CSV writer's spreadsheet formula guard on one cell: {@code '=SUM(A1)} reads as {@code =SUM(A1)},
+     * {@code ''=x} as {@code '=x}; an apostrophe before anything else ({@code 'plain}) is kept.
+     */
+    static String unguard(String cell) {
+        return cell.startsWith("'") && formulaStart(cell, 1) ? cell.substring(1) : cell;
+    }
+
+    /** {@link #unguard} for the text after each comma of a comment line (after blanks and an opening quote). */
+    static String unguardPieces(String s) {
+        StringBuilder b = null;
+        int from = 0;
+        for (int comma = s.indexOf(','); comma >= 0; comma = s.indexOf(',', comma + 1)) {
+            int start = comma + 1;
+            while (start < s.length() && s.charAt(start) == ' ') {
+                start++;
+            }
+            if (start < s.length() && s.charAt(start) == '"') {
+                start++;
+            }
+            if (start < s.length() && s.charAt(start) == '\'' && formulaStart(s, start + 1)) {
+                b = b == null ? new StringBuilder(s.length()) : b;
+                b.append(s, from, start);
+                from = start + 1;
+            }
+        }
+        return b == null ? s : b.append(s, from, s.length()).toString();
+    }
+
+    /** True when {@code s} from {@code i} is apostrophes followed by a character a spreadsheet runs as a formula. */
+    private static boolean formulaStart(String s, int i) {
+        while (i < s.length() && s.charAt(i) == '\'') {
+            i++;
+        }
+        if (i == s.length()) {
+            return false;
+        }
+        char c = s.charAt(i);
+        return c == '=' || c == '+' || c == '-' || c == '@' || c == '\t' || c == '\r';
     }
 
     private static int skipLineEnd(String s, int i) {
@@ -241,7 +287,8 @@ public final class Csv {
                 if (colon > 0) {
                     String key = r.comment().substring(0, colon).strip().toLowerCase(Locale.ROOT);
                     if (key.matches("[a-z0-9_\\-]+")) {
-                        meta.add(new CsvTable.Metadata(key, r.comment().substring(colon + 1).strip(), r.row()));
+                        meta.add(new CsvTable.Metadata(key, unguardPieces(r.comment().substring(colon + 1).strip()),
+                                r.row()));
                     }
                 }
                 continue;

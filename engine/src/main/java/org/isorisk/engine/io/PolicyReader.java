@@ -87,6 +87,30 @@ public final class PolicyReader {
     }
 
     /**
+     * The per-asset table a policy file names with {@code bounds_file}, resolved against the policy's folder as
+     * {@link #read(Path, List)} resolves it, without reading the table or checking the rest of the policy; empty
+     * when the policy names none or is not readable YAML (reading it then reports the problem). For callers that
+     * must know every file a run reads, e.g. so that no output of the run replaces one.
+     */
+    public static java.util.Optional<Path> boundsFile(Path policy) {
+        try (Reader in = Files.newBufferedReader(policy, StandardCharsets.UTF_8)) {
+            LoaderOptions options = new LoaderOptions();
+            options.setAllowDuplicateKeys(true);
+            if (new Yaml(options).compose(in) instanceof MappingNode m) {
+                for (NodeTuple t : m.getValue()) {
+                    if (t.getKeyNode() instanceof ScalarNode k && k.getValue().equals("bounds_file")
+                            && t.getValueNode() instanceof ScalarNode v && !v.getValue().isBlank()) {
+                        return java.util.Optional.of(policy.toAbsolutePath().getParent().resolve(v.getValue()));
+                    }
+                }
+            }
+        } catch (IOException | YAMLException | java.nio.file.InvalidPathException e) {
+            // read() reports an unreadable or invalid policy with its line and a fix
+        }
+        return java.util.Optional.empty();
+    }
+
+    /**
      * Reads a policy from {@code reader} (not closed).
      *
      * @param fileName name used in messages

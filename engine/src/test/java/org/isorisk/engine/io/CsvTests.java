@@ -147,4 +147,23 @@ class CsvTests {
         assertEquals("no-such-dir/nope.csv: the expected returns file does not exist; fix: check the path; a relative "
                 + "path starts from the current folder", e.getMessage());
     }
+
+    @Test
+    void cellsGuardedAgainstSpreadsheetFormulasReadBackAsTheyWereGiven() {
+        // The guard is the project's CSV writer's (OWASP "CSV Injection": = + - @ tab carriage-return get one
+        // leading apostrophe); this reader removes exactly that apostrophe, in the header, the cells and quoted cells.
+        CsvTable t = parse("asset,'-weight\n'=SUM(A1:A9),0.1\n'+Plus,-0.05\n'-Minus,0.2\n'@At,0.3\n''=x,0.4\n"
+                + "'plain,0.5\n\"'-10 Minus, Start\",0.6\n\"'\tTab\",0.7\n',0.8\n");
+        assertEquals(List.of("asset", "-weight"), t.header());
+        List<String> names = t.rows().stream().map(r -> r.cell(0)).toList();
+        assertEquals(List.of("=SUM(A1:A9)", "+Plus", "-Minus", "@At", "'=x", "'plain", "-10 Minus, Start", "\tTab",
+                "'"), names);
+        assertEquals(-0.05, t.number(t.rows().get(1), 1, "+Plus"), "numbers are never guarded and read as numbers");
+    }
+
+    @Test
+    void commentLinesGuardedAfterTheirCommasReadBackAsTheyWereGiven() {
+        CsvTable t = parse("# scenario: Crisis, '=cmd and ,\"'@x\" and , 'plain\nasset,weight\nA,1\n");
+        assertEquals("Crisis, =cmd and ,\"@x\" and , 'plain", t.meta("scenario").orElseThrow().value());
+    }
 }

@@ -150,6 +150,19 @@ class PolicyReaderTests {
     }
 
     @Test
+    void theBoundsFileAPolicyNamesIsFoundWithoutReadingIt(@TempDir Path dir) throws IOException {
+        // callers that must know every file a run reads (no output may replace one) ask before reading the policy
+        Path sub = Files.createDirectories(dir.resolve("policies"));
+        Path policy = Files.writeString(sub.resolve("p.yaml"), "budget: 1.0\nbounds_file: ../limits.csv\n");
+        assertEquals(java.util.Optional.of(sub.resolve("../limits.csv")), PolicyReader.boundsFile(policy));
+        Files.writeString(policy, "budget: 1.0\n");
+        assertEquals(java.util.Optional.empty(), PolicyReader.boundsFile(policy));
+        Files.writeString(policy, "budget: [1.0\n");
+        assertEquals(java.util.Optional.empty(), PolicyReader.boundsFile(policy), "invalid YAML: read() reports it");
+        assertEquals(java.util.Optional.empty(), PolicyReader.boundsFile(dir.resolve("missing.yaml")));
+    }
+
+    @Test
     void aBoundsFileBesideThePolicyGivesLimitsAndGroupMembers(@TempDir Path dir) throws IOException {
         Files.writeString(dir.resolve("limits.csv"), "asset,min,max,group\nCash,0.02,0.04,\nDomestic Equity,,0.3,Equity\n"
                 + "Emerging Equity,0,0.1,Equity\n");

@@ -9,21 +9,24 @@ import java.util.List;
 import org.isorisk.engine.explain.Caution;
 
 /**
- * The project's one CSV writer. It writes CSV that the engine's reader ({@code engine.io.Csv}) reads back:
- * {@code # key: value} lines above the header (the caution, the as-of date), comma separated, {@code \n} line
- * ends, cells quoted when they hold a comma, quote, line break or {@code #}, numbers locale-independent with a
- * decimal point and full precision. Writes to the {@link Writer} it is given and never closes it.
+ * The project's one CSV writer: every CSV file and every {@code --format csv} output of the tool is written here.
+ * It writes CSV that the engine's reader ({@code engine.io.Csv}) reads back: {@code # key: value} lines above the
+ * header (the caution, the as-of date), comma separated, {@code \n} line ends, cells quoted when they hold a comma,
+ * quote, line break or {@code #}, numbers locale-independent with a decimal point and full precision. Writes to the
+ * {@link Writer} it is given and never closes it.
  *
- * <p><b>The spreadsheet formula guard</b> ({@link #write(Table, Writer)}, {@link #neutralise}). A spreadsheet
- * that opens a CSV file runs a cell as a formula when it starts with {@code =}, {@code +}, {@code -} or
- * {@code @}, and some also after a leading tab or carriage return (OWASP, "CSV Injection"). So every
- * <em>text</em> cell of a table for people (asset, group, constraint and scenario names, and the header) that
+ * <p><b>The spreadsheet formula guard</b>, applied to every text cell this class writes ({@link #row},
+ * {@link #write(Table, Writer)}, {@link #nameRow}) and to the text after each comma of a comment line
+ * ({@link #comment}). A spreadsheet that opens a CSV file runs a cell as a formula when it starts with {@code =},
+ * {@code +}, {@code -} or {@code @}, and some also after a leading tab or carriage return (OWASP, "CSV
+ * Injection"). So every <em>text</em> cell (asset, group, constraint and scenario names, headers, labels) that
  * starts with one of those six characters, or with one or more apostrophes followed by one of them, gets one more
- * apostrophe in front; spreadsheets show a leading apostrophe as "treat as text". <em>Number</em> cells are never
- * touched: they are written as plain numbers, so {@code -0.05} stays a negative number that spreadsheets and
- * pandas read as such. The rule is reversible ({@link #restore}); the notebook's Python helper undoes it the same
- * way when it reloads the tables, so names read as they were given. The rows of {@link #row} are written as given:
- * they are the command line's CSV results and the assumption tables that later runs read back as inputs.
+ * apostrophe in front ({@link #neutralise}); spreadsheets show a leading apostrophe as "treat as text".
+ * <em>Number</em> cells ({@link Double}, other {@link Number}s, {@code double[]} values) are never touched: they
+ * are written as plain numbers, so {@code -0.05} stays a negative number that spreadsheets and pandas read as
+ * such. The rule is reversible ({@link #restore}): the engine's CSV reader undoes it on every cell, so a
+ * {@code solve} CSV is a valid {@code risk --weights} input and an {@code estimate} table a valid {@code solve}
+ * input whatever the asset names; the notebook's Python helper undoes it the same way when it reloads the tables.
  */
 public final class CsvWriter {
     private final Writer out;
@@ -49,13 +52,21 @@ public final class CsvWriter {
         return s.toString();
     }
 
-    /** A {@code # key: value} line; line breaks in the value become spaces. */
+    /**
+     * A {@code # key: value} line; line breaks in the value become spaces. A spreadsheet does not know comment
+     * lines and splits this one at its commas, so the text after each comma is guarded like a text cell (after
+     * blanks and an opening quote, where the spreadsheet's cell starts): {@code "A, =B"} is written
+     * {@code "A, '=B"}. The engine's reader undoes that on the metadata it keeps.
+     */
     public CsvWriter comment(String key, String value) throws IOException {
-        out.write("# " + key + ": " + value.replace('\n', ' ').replace('\r', ' ') + "\n");
+        out.write("# " + key + ": " + guardPieces(value.replace('\n', ' ').replace('\r', ' ')) + "\n");
         return this;
     }
 
-    /** One row; {@link Double} cells become numbers (empty when not finite), null an empty cell. */
+    /**
+     * One row: {@link Double} cells become numbers (empty when not finite), other {@link Number}s and
+     * {@link Boolean}s their plain text, null an empty cell, anything else a text cell with the formula guard.
+     */
     public CsvWriter row(Object... cells) throws IOException {
         StringBuilder b = new StringBuilder();
         for (int i = 0; i < cells.length; i++) {
@@ -68,7 +79,7 @@ public final class CsvWriter {
             } else if (c instanceof Number || c instanceof Boolean) {
                 b.append(c);
             } else if (c != null) {
-                b.append(cell(c.toString()));
+                b.append(text(c.toString()));
             }
         }
         b.append('\n');
@@ -76,12 +87,35 @@ public final class CsvWriter {
         return this;
     }
 
+    /** One row of a list of cells, as {@link #row(Object...)}. */
+    public CsvWriter row(List<?> cells) throws IOException {
+        return row(cells.toArray());
+    }
+
     /**
-     * A text cell, quoted when needed: with a comma, quote or line break, leading or trailing blanks, or a
-     * {@code #} anywhere (readers that take {@code #} as a comment, such as pandas' {@code comment="#"}, skip
-     * the rest of an unquoted line).
+     * A row of a named table: a text cell (the formula guard applies) and then numbers, e.g. one row of a square
+     * matrix with its asset name first; without boxing, for large matrices.
      */
-    public static String cell(String s) {
+    public CsvWriter nameRow(String name, double[] values) throws IOException {
+        StringBuilder b = new StringBuilder(16 + 24 * values.length).append(text(name));
+        for (double v : values) {
+            b.append(',').append(number(v));
+        }
+        out.write(b.append('\n').toString());
+        return this;
+    }
+
+    /** A text cell as written: the formula guard ({@link #neutralise}), then quoting ({@link #cell}). */
+    public static String text(String s) {
+        return cell(neutralise(s));
+    }
+
+    /**
+     * A cell quoted when needed, without the formula guard (use {@link #text} for text): with a comma, quote or line
+     * break, leading or trailing blanks, or a {@code #} anywhere (readers that take {@code #} as a comment, such as
+     * pandas' {@code comment="#"}, skip the rest of an unquoted line).
+     */
+    static String cell(String s) {
         if (s.indexOf(',') >= 0 || s.indexOf('"') >= 0 || s.indexOf('\n') >= 0 || s.indexOf('\r') >= 0
                 || s.indexOf('#') >= 0 || !s.equals(s.strip())) {
             return '"' + s.replace("\"", "\"\"") + '"';
@@ -112,14 +146,14 @@ public final class CsvWriter {
             List<Table.Column> cols = t.columns();
             Object[] header = new Object[cols.size()];
             for (int c = 0; c < cols.size(); c++) {
-                header[c] = neutralise(cols.get(c).key());
+                header[c] = cols.get(c).key();
             }
             w.row(header);
             for (List<Table.Cell> row : t.rows()) {
                 Object[] cells = new Object[row.size()];
                 for (int c = 0; c < row.size(); c++) {
-                    cells[c] = row.get(c) instanceof Table.Cell.Text x ? neutralise(x.value())
-                            : (Object) ((Table.Cell.Number) row.get(c)).value();
+                    cells[c] = row.get(c) instanceof Table.Cell.Text x ? x.value()
+                            : (Object) ((Table.Cell.Number) row.get(c)).value(); // row() guards the text
                 }
                 w.row(cells);
             }
@@ -129,7 +163,7 @@ public final class CsvWriter {
         }
     }
 
-    /** Applies the formula guard to one text cell (see the class comment). */
+    /** Applies the formula guard to one text cell (see the class comment); {@link #row} does it for every text cell. */
     public static String neutralise(String s) {
         return risky(s) ? "'" + s : s;
     }
@@ -137,6 +171,32 @@ public final class CsvWriter {
     /** Undoes {@link #neutralise}: removes one leading apostrophe when the guard added it. */
     public static String restore(String s) {
         return s.startsWith("'") && risky(s.substring(1)) ? s.substring(1) : s;
+    }
+
+    /**
+     * The formula guard on the text after each comma of a comment line: one apostrophe where the spreadsheet's cell
+     * would start (after blanks and an opening quote) with a trigger, or with apostrophes and a trigger.
+     */
+    static String guardPieces(String s) {
+        if (s.indexOf(',') < 0) {
+            return s;
+        }
+        StringBuilder b = new StringBuilder(s.length() + 4);
+        int from = 0;
+        for (int comma = s.indexOf(','); comma >= 0; comma = s.indexOf(',', comma + 1)) {
+            int start = comma + 1;
+            while (start < s.length() && s.charAt(start) == ' ') {
+                start++;
+            }
+            if (start < s.length() && s.charAt(start) == '"') {
+                start++;
+            }
+            if (risky(s.substring(start))) {
+                b.append(s, from, start).append('\'');
+                from = start;
+            }
+        }
+        return b.append(s, from, s.length()).toString();
     }
 
     private static boolean risky(String s) {

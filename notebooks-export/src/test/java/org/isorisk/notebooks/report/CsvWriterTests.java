@@ -134,4 +134,46 @@ class CsvWriterTests {
         assertEquals(1e-9, t.number(t.rows().get(1), 1, null));
         assertEquals("", t.rows().get(1).cell(2));
     }
+
+    /** Names a spreadsheet would run as formulas (OWASP, "CSV Injection") and other hostile names. */
+    private static final List<String> FORMULAS = List.of("=SUM(A1:A9)", "+Plus", "-Minus", "@At", "\tTab", "'=quoted",
+            "''@twice", "=cmd|' /C calc'!A0", "-10 Minus, Start", "'plain", "Cash");
+
+    @Test
+    void everyRowGuardsItsTextCellsAndNeverItsNumbers() {
+        String csv = CsvWriter.text(w -> w.row("=x", -0.05, 3, -2L, true, null, "-0.05"));
+        assertEquals("'=x,-0.05,3,-2,true,,'-0.05\n", csv, "a number given as text is text, and guarded");
+        assertEquals("'@A,-1.5,0.25\n", CsvWriter.text(w -> w.nameRow("@A", new double[]{-1.5, 0.25})));
+        assertEquals("'=x,\"'-a, b\"\n", CsvWriter.text(w -> w.row(List.of("=x", "-a, b"))));
+    }
+
+    @Test
+    void commentLinesAreGuardedWhereASpreadsheetWouldStartACell() {
+        String csv = CsvWriter.text(w -> w.comment("note", "A, =B,\"@C\", -0.05 %, plain, 'D"));
+        assertEquals("# note: A, '=B,\"'@C\", '-0.05 %, plain, 'D\n", csv);
+    }
+
+    @Test
+    void hostileNamesReadBackThroughTheEnginesReaderAsTheyWereGiven() {
+        // The writer's guard and the engine's reader (engine.io.Csv) are two halves of one rule: every text cell
+        // and header, and the text of a comment line, comes back unchanged; every number stays a number.
+        String csv = CsvWriter.text(w -> {
+            w.comment("scenario", String.join(", ", FORMULAS));
+            List<Object> header = new java.util.ArrayList<>(List.of("asset"));
+            header.addAll(FORMULAS);
+            w.row(header);
+            for (int i = 0; i < FORMULAS.size(); i++) {
+                double[] row = new double[FORMULAS.size()];
+                row[i] = -0.05 * (i + 1);
+                w.nameRow(FORMULAS.get(i), row);
+            }
+        });
+        CsvTable t = Csv.parse("o.csv", "covariance", csv);
+        assertEquals(String.join(", ", FORMULAS), t.meta("scenario").orElseThrow().value());
+        assertEquals(FORMULAS, t.header().subList(1, t.header().size()));
+        for (int i = 0; i < FORMULAS.size(); i++) {
+            assertEquals(FORMULAS.get(i), t.rows().get(i).cell(0));
+            assertEquals(-0.05 * (i + 1), t.number(t.rows().get(i), i + 1, null));
+        }
+    }
 }
