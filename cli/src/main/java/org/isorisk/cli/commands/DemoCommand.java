@@ -120,12 +120,10 @@ public final class DemoCommand extends BaseCommand {
             } else {
                 extract("scenarios.yaml", temp);
             }
-            extract("pack.yaml", temp);
             // The bundled pack file's fund size is the sample holdings' total; the folder's holdings set their own
             // (a fund size that contradicts the holdings' market values is refused, as 'rebalance' refuses it).
-            Path pack = temp.resolve("pack.yaml");
-            Files.writeString(pack, Files.readString(pack).replaceAll("(?m)^fund_size:.*\\R", ""));
-            return new Sources(data, pack);
+            extract("pack.yaml", temp, text -> text.replaceAll("(?m)^fund_size:.*\\R", ""));
+            return new Sources(data, temp.resolve("pack.yaml"));
         }
         for (String name : SAMPLE_FILES) {
             extract(name, temp);
@@ -134,11 +132,21 @@ public final class DemoCommand extends BaseCommand {
     }
 
     private static void extract(String name, Path dir) throws IOException {
+        extract(name, dir, text -> text);
+    }
+
+    /** Copies the bundled sample file {@code name} into {@code dir}, its text changed by {@code edit}. */
+    private static void extract(String name, Path dir, java.util.function.UnaryOperator<String> edit)
+            throws IOException {
         try (InputStream s = DemoCommand.class.getResourceAsStream("/org/isorisk/cli/sample-data/" + name)) {
             if (s == null) {
                 throw new IllegalStateException("the sample file " + name + " is missing from the build");
             }
-            Files.copy(s, dir.resolve(name));
+            byte[] bytes = s.readAllBytes();
+            String text = new String(bytes, java.nio.charset.StandardCharsets.UTF_8);
+            String edited = edit.apply(text);
+            Files.copy(new java.io.ByteArrayInputStream(edited.equals(text) ? bytes
+                    : edited.getBytes(java.nio.charset.StandardCharsets.UTF_8)), dir.resolve(name));
         }
     }
 
