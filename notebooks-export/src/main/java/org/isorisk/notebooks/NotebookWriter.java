@@ -134,6 +134,22 @@ public final class NotebookWriter {
     }
 
     private void summary() {
+        if (content.keyPoints().isEmpty()) {
+            derivedSummary();
+            return;
+        }
+        List<String> lines = new ArrayList<>();
+        lines.add("## Summary");
+        lines.add("");
+        for (PackContent.KeyPoint k : content.keyPoints()) {
+            String text = Text.markdown(k.text());
+            lines.add("- **" + Text.markdown(k.label()) + ":** " + (k.attention() ? "**" + text + "**" : text));
+        }
+        markdown("summary", lines);
+    }
+
+    /** The summary of a content without key points of its own: the proposal, the portfolios, the trades. */
+    private void derivedSummary() {
         PackContent.Portfolio p = content.proposal();
         List<String> lines = new ArrayList<>();
         lines.add("## Summary");
@@ -224,10 +240,12 @@ public final class NotebookWriter {
 
     private void portfolios() {
         PackContent.Portfolio p = content.proposal();
+        boolean sideBySide = content.besideProposal().isPresent();
         markdown("portfolios", "## Portfolios", "",
                 "The minimum-variance portfolio carries the least risk the mandate allows; each target portfolio has "
                         + "the least risk for its expected return. The proposal is **" + Text.markdown(p.label())
-                        + "**.");
+                        + "**" + (sideBySide ? ": the portfolio the trade list reaches. The trading limits or costs keep "
+                        + "it from the target portfolio, which is shown beside it for comparison." : "."));
         table(content.summary());
         table(content.weights());
         charts(PackContent.ChartKind.WEIGHTS);
@@ -251,7 +269,7 @@ public final class NotebookWriter {
 
     private void risk() {
         markdown("risk", "## Where the risk of the proposal comes from", "",
-                "Marginal risk is how much the portfolio's volatility moves per unit of extra weight in an asset "
+                "The proposal here is **" + Text.markdown(content.proposal().label()) + "**. Marginal risk is how much the portfolio's volatility moves per unit of extra weight in an asset "
                         + "(∂σ/∂wᵢ = (Σw)ᵢ/σ); an asset's contribution is its weight times its marginal risk. The "
                         + "contributions add up to the portfolio's volatility (Euler's theorem for functions "
                         + "homogeneous of degree one).");
@@ -299,11 +317,31 @@ public final class NotebookWriter {
         table(content.assumptions().correlation());
         content.frontier().ifPresent(this::table);
         table(content.constraints());
+        for (Table t : content.appendix()) {
+            table(t);
+        }
     }
 
     private void stress() {
-        markdown("stress", "## Stress", "",
-                "How the portfolios' risk and return move when the assumptions are replaced by each scenario's.");
+        boolean proposal = content.stress().stream().anyMatch(t -> t.name().equals("stress_proposal"));
+        List<String> lines = new ArrayList<>(List.of("## Stress", "",
+                "How the portfolios' risk and return move when the assumptions are replaced by each scenario's"
+                        + (proposal ? ": first the proposal (**" + Text.markdown(content.proposal().label())
+                        + "**) and today's holdings as they are, then the least-risk portfolio at each target "
+                        + "re-optimised under the scenario" : "") + ". Each point re-optimised under a scenario has a "
+                        + "status: optimal (solved), infeasible (the target is out of reach under the scenario) or "
+                        + "not-solved (the solver failed; the reason is in the Note column)."));
+        if (!content.notSolved().isEmpty()) {
+            lines.add("");
+            lines.add("**" + content.notSolved().size() + " stress point" + (content.notSolved().size() == 1
+                    ? " was" : "s were") + " not solved:**");
+            lines.add("");
+            for (PackContent.NotSolved x : content.notSolved()) {
+                lines.add("- " + Text.markdown(x.scenario() + " at " + Explain.percent(x.target()) + " in the "
+                        + x.where() + ": " + x.status() + " (" + x.reason() + ")"));
+            }
+        }
+        markdown("stress", lines);
         for (Table t : content.stress()) {
             table(t);
         }
@@ -341,7 +379,8 @@ public final class NotebookWriter {
         }
         if (!t.breaches().isEmpty()) {
             lines.add("");
-            lines.add("Today's holdings break the policy; the trades below cure it:");
+            lines.add(content.trades().isPresent() ? "Today's holdings break the policy; the trades below cure it:"
+                    : "Today's holdings break the policy:");
             lines.add("");
             for (String b : t.breaches()) {
                 lines.add("- " + Text.markdown(b));
@@ -349,9 +388,11 @@ public final class NotebookWriter {
         }
         lines.add("");
         lines.add(t.mode() == PackContent.Trading.Mode.WITHIN_LIMITS
-                ? "What keeping to the limits (and paying the trading costs) changes: the full move to the proposal "
-                + "beside the move within the limits, both measured against today's holdings."
-                : "The full move to the proposal, measured against today's holdings.");
+                ? "What keeping to the limits (and paying the trading costs) changes: the full move to the target "
+                + "portfolio beside the proposal, both measured against today's holdings."
+                : t.mode() == PackContent.Trading.Mode.FULL_MOVE
+                ? "The full move to the proposal, measured against today's holdings."
+                : "The full move to the target portfolio, measured against today's holdings.");
         markdown("trades", lines);
         table(t.comparison());
         if (!t.reading().isBlank()) {
@@ -364,7 +405,7 @@ public final class NotebookWriter {
         }
         List<String> after = new ArrayList<>();
         if (!t.sentences().isEmpty()) {
-            after.add("What each limit costs at the margin: the shadow prices of the move within the limits, read for a "
+            after.add("What each limit costs at the margin: the shadow prices of the proposal's move, read for a "
                     + "small step (first-order estimates):");
             after.add("");
             for (String x : t.sentences()) {

@@ -15,30 +15,56 @@ import org.isorisk.notebooks.report.Table;
  * @param heading     fund, currency, as-of date, caution
  * @param assumptions the capital-market assumptions and how they were made
  * @param mandate     the mandate in plain sentences, one per rule
- * @param portfolios  the minimum-variance portfolio first, then the target portfolios; one is the proposal
+ * @param portfolios  the minimum-variance portfolio first, then the target portfolios, the tangency portfolio, the
+ *                    proposal when it is not one of the target portfolios (the portfolio the trades reach, when the
+ *                    trading limits or costs keep them from the target portfolio: both are then shown side by side),
+ *                    and the current holdings; exactly one is the proposal
  * @param frontier    sampled frontier points (target, return, volatility), when the pack draws a frontier
  * @param weights     weights table: one row per asset, one column per portfolio
- * @param risk        risk table of the proposed portfolio: weight, marginal risk, contribution, share
+ * @param risk        risk table of the proposed portfolio (the one the trades reach): weight, marginal risk,
+ *                    contribution, share
  * @param binding     every binding constraint of every portfolio, with its shadow price in a sentence
  * @param constraints the shadow-price table behind {@code binding} (CSV for the analyst)
  * @param charts      chart images, placed by kind
  * @param trades      the trade list when the pack has current holdings (absent when the proposal's target is out of
  *                    reach within the trading limits: see {@code trading})
- * @param stress      stress tables, one per scenario sweep, when scenarios ran
+ * @param stress      stress tables, when scenarios ran: the targets under each scenario (with each point's status),
+ *                    and the proposal (and today's holdings) under each scenario
  * @param run         the run record: tool version, inputs and their hashes, parameters, certificates
  * @param trading     how the trade list was made (the full move, or within the policy's trading limits) and what
  *                    the limits cost, when the pack has current holdings
+ * @param keyPoints   what the summary says, in order: the proposal (and the target portfolio beside it when they
+ *                    differ), the minimum-variance portfolio, today's holdings, today's breaches of the policy, the
+ *                    trades, targets on the inefficient branch, stress points not solved, the certificates. Every
+ *                    reader of the pack (notebook, terminal, HTML/PDF) shows these lines first
+ * @param breaches    the limits of the policy today's holdings break, in sentences (empty without holdings)
+ * @param notSolved   stress points reported instead of solved (with their status and the solver's message); the
+ *                    rest of the pack is complete
+ * @param appendix    further tables for the analyst, shown in the appendix after the correlations, the frontier
+ *                    and the shadow prices (e.g. the data behind the stress chart, one row per scenario and target
+ *                    with its status)
  */
 public record PackContent(Heading heading, Assumptions assumptions, List<String> mandate, List<Portfolio> portfolios,
-                          Optional<Table> frontier, Table weights, Table risk, List<Binding> binding, Table constraints, List<Chart> charts,
-                          Optional<Table> trades, List<Table> stress, RunRecord run, Optional<Trading> trading) {
+                          Optional<Table> frontier, Table weights, Table risk, List<Binding> binding, Table constraints,
+                          List<Chart> charts, Optional<Table> trades, List<Table> stress, RunRecord run,
+                          Optional<Trading> trading, List<KeyPoint> keyPoints, List<String> breaches,
+                          List<NotSolved> notSolved, List<Table> appendix) {
+
+    /** A pack without key points, breaches, unsolved points or appendix tables of its own. */
+    public PackContent(Heading heading, Assumptions assumptions, List<String> mandate, List<Portfolio> portfolios,
+                       Optional<Table> frontier, Table weights, Table risk, List<Binding> binding, Table constraints,
+                       List<Chart> charts, Optional<Table> trades, List<Table> stress, RunRecord run,
+                       Optional<Trading> trading) {
+        this(heading, assumptions, mandate, portfolios, frontier, weights, risk, binding, constraints, charts, trades,
+                stress, run, trading, List.of(), List.of(), List.of(), List.of());
+    }
 
     /** A pack without the account of how its trade list was made. */
     public PackContent(Heading heading, Assumptions assumptions, List<String> mandate, List<Portfolio> portfolios,
                        Optional<Table> frontier, Table weights, Table risk, List<Binding> binding, Table constraints,
                        List<Chart> charts, Optional<Table> trades, List<Table> stress, RunRecord run) {
         this(heading, assumptions, mandate, portfolios, frontier, weights, risk, binding, constraints, charts, trades,
-                stress, run, Optional.empty());
+                stress, run, Optional.empty(), List.of(), List.of(), List.of(), List.of());
     }
 
     public PackContent {
@@ -62,12 +88,17 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
         trades = trades == null ? Optional.empty() : trades;
         stress = List.copyOf(stress);
         trading = trading == null ? Optional.empty() : trading;
+        keyPoints = keyPoints == null ? List.of() : List.copyOf(keyPoints);
+        breaches = breaches == null ? List.of() : List.copyOf(breaches);
+        notSolved = notSolved == null ? List.of() : List.copyOf(notSolved);
+        appendix = appendix == null ? List.of() : List.copyOf(appendix);
         if (trading.isPresent() && (trading.get().mode() == Trading.Mode.OUT_OF_REACH) == trades.isPresent()) {
             throw new IllegalArgumentException("a trade list goes with every trading account but one whose target is "
                     + "out of reach");
         }
         java.util.Set<String> names = new java.util.HashSet<>();
-        for (Table t : tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades, trading)) {
+        for (Table t : tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades, trading,
+                appendix)) {
             if (!names.add(t.name())) {
                 throw new IllegalArgumentException("two tables are named " + t.name());
             }
@@ -82,12 +113,13 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
 
     /** Every table of the pack, in notebook order; each is also written as CSV next to the notebook. */
     public List<Table> tables() {
-        return tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades, trading);
+        return tablesOf(assumptions, portfolios, weights, frontier, risk, constraints, stress, trades, trading,
+                appendix);
     }
 
     private static List<Table> tablesOf(Assumptions assumptions, List<Portfolio> portfolios, Table weights,
                                         Optional<Table> frontier, Table risk, Table constraints, List<Table> stress,
-                                        Optional<Table> trades, Optional<Trading> trading) {
+                                        Optional<Table> trades, Optional<Trading> trading, List<Table> appendix) {
         List<Table> all = new java.util.ArrayList<>();
         all.add(assumptions.table());
         all.add(assumptions.correlation());
@@ -99,10 +131,11 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
         stress.forEach(all::add);
         trading.ifPresent(t -> all.add(t.comparison()));
         trades.ifPresent(all::add);
+        appendix.forEach(all::add);
         return all;
     }
 
-    /** The portfolios as a table: label, expected return, volatility, method, certificate. */
+    /** The portfolios as a table: label, role, expected return, volatility, method, certificate, note. */
     public Table summary() {
         return summary(portfolios);
     }
@@ -114,10 +147,11 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
                 .column(Table.Column.percent("expected_return", "Expected return"))
                 .column(Table.Column.percent("volatility", "Volatility"))
                 .column(Table.Column.text("method", "Method"))
-                .column(Table.Column.text("certificate", "KKT certificate"));
+                .column(Table.Column.text("certificate", "KKT certificate"))
+                .column(Table.Column.text("note", "Note"));
         for (Portfolio p : portfolios) {
             b.row(p.label(), p.proposed() ? "proposed" : "", p.expectedReturn(), p.volatility(), p.method(),
-                    p.certificate());
+                    p.certificate(), p.remark());
         }
         return b.build();
     }
@@ -128,6 +162,11 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
     /** The current holdings, when the pack has them. */
     public Optional<Portfolio> current() {
         return portfolios.stream().filter(p -> p.method().equals(GIVEN)).findFirst();
+    }
+
+    /** The target portfolio shown beside the proposal, when the trading limits or costs keep the trades from it. */
+    public Optional<Portfolio> besideProposal() {
+        return portfolios.stream().filter(Portfolio::besideProposal).findFirst();
     }
 
     /** The proposed portfolio. */
@@ -195,13 +234,68 @@ public record PackContent(Heading heading, Assumptions assumptions, List<String>
      * @param method         how it was solved ({@code closed-form}, {@code numerical}, ...)
      * @param certificate    one line on the KKT certificate (residuals, pass or warn)
      * @param passes         true when the certificate passes
+     * @param remark         what a reader must know besides the numbers, in a few words (e.g. "the target before
+     *                       trading limits and costs: the trades do not reach it", "on the inefficient branch: ..."),
+     *                       empty when nothing
      */
     public record Portfolio(String label, boolean proposed, double expectedReturn, double volatility, String method,
-                            String certificate, boolean passes) {
+                            String certificate, boolean passes, String remark) {
         public Portfolio {
             Objects.requireNonNull(label, "label");
             Objects.requireNonNull(method, "method");
             Objects.requireNonNull(certificate, "certificate");
+            remark = remark == null ? "" : remark;
+        }
+
+        /**
+         * How the remark of the target portfolio begins when it is shown beside the proposal (the trading limits or
+         * costs keep the trades from it).
+         */
+        public static final String BEFORE_TRADING = "the proposed target before ";
+
+        /** True for the target portfolio shown beside a proposal that differs from it. */
+        public boolean besideProposal() {
+            return !proposed && remark.startsWith(BEFORE_TRADING);
+        }
+
+        /** A portfolio without a remark. */
+        public Portfolio(String label, boolean proposed, double expectedReturn, double volatility, String method,
+                         String certificate, boolean passes) {
+            this(label, proposed, expectedReturn, volatility, method, certificate, passes, "");
+        }
+    }
+
+    /**
+     * One line of the summary.
+     *
+     * @param label     a few words in front, e.g. "Proposed portfolio"
+     * @param text      the plain sentence(s) after it
+     * @param attention true when a reader must not miss it (a breach, a certificate above tolerance, a stress point
+     *                  not solved); shown emphasised
+     */
+    public record KeyPoint(String label, String text, boolean attention) {
+        public KeyPoint {
+            Objects.requireNonNull(label, "label");
+            Objects.requireNonNull(text, "text");
+        }
+    }
+
+    /**
+     * A stress point the pack reports instead of a solution.
+     *
+     * @param where    which run: {@code "stress table"} (the pack file's targets) or {@code "stress chart"} (the
+     *                 frontier's targets)
+     * @param scenario the scenario's name, or {@code "today's assumptions"}
+     * @param target   the return target, decimal
+     * @param status   {@code not-solved} or {@code infeasible}, as the JSON contract names them
+     * @param reason   the solver's message
+     */
+    public record NotSolved(String where, String scenario, double target, String status, String reason) {
+        public NotSolved {
+            Objects.requireNonNull(where, "where");
+            Objects.requireNonNull(scenario, "scenario");
+            Objects.requireNonNull(status, "status");
+            reason = reason == null ? "" : reason;
         }
     }
 

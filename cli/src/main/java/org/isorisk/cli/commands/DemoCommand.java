@@ -13,6 +13,8 @@ import org.isorisk.cli.files.OutputPath;
 import org.isorisk.cli.files.PackFolder;
 import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.PolicyOption;
+import org.isorisk.cli.render.ProgressLine;
+import org.isorisk.cli.render.StepProgress;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.Units;
@@ -51,6 +53,10 @@ public final class DemoCommand extends BaseCommand {
                     + "fund.")
     Path data;
 
+    @Option(names = "--quiet", description = "No progress on stderr (by default a step that runs longer than a second "
+            + "is shown there).")
+    boolean quiet;
+
     @Override
     protected ExitCode execute() throws IOException {
         Path in = Files.createTempDirectory("isorisk-demo-inputs-");
@@ -68,9 +74,12 @@ public final class DemoCommand extends BaseCommand {
             // any folder that is not an isorisk pack.
             PolicyOption policy = PolicyOption.of(Files.isRegularFile(dir.resolve("policy.yaml"))
                     ? dir.resolve("policy.yaml") : null);
-            PackCommand.Made made = PackCommand.make(files(), u, policy, dir.resolve("holdings.csv"), src.packFile(),
-                    Units.DECIMAL, out, true, extra, toolVersion());
-            warn(made.warnings());
+            PackCommand.Made made;
+            try (StepProgress progress = quiet ? null
+                    : new StepProgress(err(), ProgressLine.stderrIsTerminal(), spec.name())) {
+                made = PackCommand.make(files(), u, policy, dir.resolve("holdings.csv"), src.packFile(),
+                        Units.DECIMAL, out, true, extra, toolVersion(), progress, this::warn);
+            }
             out().print(made.summary());
             out().flush();
             err().flush();
@@ -111,7 +120,9 @@ public final class DemoCommand extends BaseCommand {
             } else {
                 extract("scenarios.yaml", temp);
             }
-            extract("pack.yaml", temp);
+            // The bundled pack file's fund size is the sample holdings' total; the folder's holdings set their own
+            // (a fund size that contradicts the holdings' market values is refused, as 'rebalance' refuses it).
+            extract("pack.yaml", temp, text -> text.replaceAll("(?m)^fund_size:.*\\R", ""));
             return new Sources(data, temp.resolve("pack.yaml"));
         }
         for (String name : SAMPLE_FILES) {
@@ -121,11 +132,21 @@ public final class DemoCommand extends BaseCommand {
     }
 
     private static void extract(String name, Path dir) throws IOException {
+        extract(name, dir, text -> text);
+    }
+
+    /** Copies the bundled sample file {@code name} into {@code dir}, its text changed by {@code edit}. */
+    private static void extract(String name, Path dir, java.util.function.UnaryOperator<String> edit)
+            throws IOException {
         try (InputStream s = DemoCommand.class.getResourceAsStream("/org/isorisk/cli/sample-data/" + name)) {
             if (s == null) {
                 throw new IllegalStateException("the sample file " + name + " is missing from the build");
             }
-            Files.copy(s, dir.resolve(name));
+            byte[] bytes = s.readAllBytes();
+            String text = new String(bytes, java.nio.charset.StandardCharsets.UTF_8);
+            String edited = edit.apply(text);
+            Files.copy(new java.io.ByteArrayInputStream(edited.equals(text) ? bytes
+                    : edited.getBytes(java.nio.charset.StandardCharsets.UTF_8)), dir.resolve(name));
         }
     }
 

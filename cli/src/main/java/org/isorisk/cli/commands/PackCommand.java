@@ -15,6 +15,9 @@ import org.isorisk.cli.files.PackFolder;
 import org.isorisk.cli.files.RunFiles;
 import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.PolicyOption;
+import org.isorisk.cli.render.ProgressLine;
+import org.isorisk.cli.render.StepProgress;
+import org.isorisk.cli.usecase.FundSize;
 import org.isorisk.cli.usecase.PackAnalysis;
 import org.isorisk.cli.usecase.PackSpecReader;
 import org.isorisk.engine.explain.Caution;
@@ -84,16 +87,27 @@ public final class PackCommand extends BaseCommand {
             description = "Replace an existing earlier pack in --out (never a folder that is not an isorisk pack).")
     boolean force;
 
+    @Option(names = "--quiet", description = "No progress on stderr (by default a step that runs longer than a second "
+            + "is shown there).")
+    boolean quiet;
+
     @Override
     protected ExitCode execute() {
         LoadedUniverse u = inputs.load(true);
-        Made made = make(files(), u, policyOption, holdings, packFile, inputs.units(), out, force, List.of(),
-                toolVersion());
-        warn(made.warnings());
+        Made made;
+        try (StepProgress progress = progress(quiet)) {
+            made = make(files(), u, policyOption, holdings, packFile, inputs.units(), out, force, List.of(),
+                    toolVersion(), progress, this::warn);
+        }
         out().print(made.summary());
         out().flush();
         err().flush();
         return ExitCode.OK;
+    }
+
+    /** Progress on stderr for the steps of a pack, or none when {@code quiet}. */
+    StepProgress progress(boolean quiet) {
+        return quiet ? null : new StepProgress(err(), ProgressLine.stderrIsTerminal(), spec.name());
     }
 
     /**
@@ -117,15 +131,30 @@ public final class PackCommand extends BaseCommand {
      * @param files       the run's files: {@code out} is one of its declared outputs
      * @param extraInputs further files to record and copy (e.g. the demo's README), as role and path
      * @param version     isorisk's version, for the manifest and the run record ({@link BaseCommand#toolVersion})
+     * @param progress    where the steps are shown (stderr); null for none
+     * @param warnings    prints the inputs' warnings as soon as they are read (stderr)
      */
     static Made make(RunFiles files, LoadedUniverse read, PolicyOption policyOption, Path holdings, Path packFile,
-                     Units units, Path out, boolean force, List<PackFolder.Input> extraInputs, String version) {
+                     Units units, Path out, boolean force, List<PackFolder.Input> extraInputs, String version,
+                     StepProgress progress, java.util.function.Consumer<List<String>> warnings) {
+        PackAnalysis.Steps steps = progress == null ? PackAnalysis.Steps.NONE : new PackAnalysis.Steps() {
+            @Override
+            public void step(String what) {
+                progress.step(what);
+            }
+
+            @Override
+            public org.isorisk.engine.stress.StressProgress counted(String what) {
+                return progress.counted(what);
+            }
+        };
+        steps.step("reading the inputs");
         PackSpec spec = PackSpecReader.read(packFile);
         PolicyOption.Loaded loaded = policyOption.load(read);
         LoadedUniverse u = loaded.inputs(); // with the policy file in its provenance
         Path policy = policyOption.path().orElse(null);
         List<String> notes = new ArrayList<>(u.warnings());
-        List<String> warnings = new ArrayList<>(u.warnings());
+        List<String> shown = new ArrayList<>(u.warnings());
         Mandate mandate = loaded.mandate();
         Optional<Policy> pol = loaded.policy();
         // the policy's trading limits shape the trade list (PackAnalysis: the full move when they restrict nothing)
@@ -136,12 +165,17 @@ public final class PackCommand extends BaseCommand {
             PortfolioFile h = PortfolioReader.read(holdings, "holdings", u.assets(), units);
             weights = Optional.of(h.weights());
             notes.addAll(h.warnings());
-            warnings.addAll(h.warnings());
+            shown.addAll(h.warnings());
             sources.add(h.source());
-            if (spec.fundSize().isEmpty() && h.marketValue().isPresent()) {
-                spec = spec.withFundSize(h.marketValue().getAsDouble());
+            // the one rule 'rebalance --fund-size' follows: a fund size that contradicts the market values is refused
+            java.util.OptionalDouble size = FundSize.resolve(h, holdings, spec.fundSize()
+                            .map(java.util.OptionalDouble::of).orElse(java.util.OptionalDouble.empty()),
+                    "fund_size in " + packFile.getFileName(), "remove fund_size from " + packFile.getFileName());
+            if (size.isPresent()) {
+                spec = spec.withFundSize(size.getAsDouble());
             }
         }
+        warnings.accept(shown);
         java.time.LocalDate asOf = spec.asOf();
         u.provenance().asOfDate().filter(d -> !d.equals(asOf)).ifPresent(d -> notes.add(
                 "The pack file's as-of date differs from the inputs' (" + d + "); the pack shows the pack file's."));
@@ -183,7 +217,14 @@ public final class PackCommand extends BaseCommand {
         }
         ChartMaker charts = new PackCharts(ChartContext.of(prov, spec.fund()), ChartSettings.defaults());
         PackResults results = PackAnalysis.run(new PackAnalysis.Request(u.universe(), mandate, spec, weights,
-                scenarios, trading));
+                scenarios, trading), steps);
+        if (!spec.charts().isEmpty()) {
+            ChartMaker drawing = charts;
+            charts = res -> {
+                steps.step("drawing the charts");
+                return drawing.draw(res);
+            };
+        }
         PackContent content = PackComposer.compose(results, new PackComposer.Request(
                 u.provenance().scenario() == null ? "" : "Inputs: " + u.provenance().scenario() + ".", version, now,
                 parameters, recorded, notes, charts));
@@ -194,6 +235,7 @@ public final class PackCommand extends BaseCommand {
         params.put("units", units.label());
         params.put("force", force);
         folder.parameters(params);
+        steps.step("writing the pack folder");
         PackFiles.addTo(folder, content);
         java.util.Set<String> copied = new java.util.HashSet<>();
         for (SourceFile s : sources) {
@@ -205,7 +247,7 @@ public final class PackCommand extends BaseCommand {
         String summary = summary(content, out, notes);
         folder.add("summary.txt", os -> os.write(summary.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
         PackFolder.Result r = folder.commit(files, out);
-        return new Made(r.folder(), content, r.files().size(), summary, warnings);
+        return new Made(r.folder(), content, r.files().size(), summary, shown);
     }
 
     /** A copy of an input under {@code inputs/}, by its file name (prefixed with its role if two names clash). */
@@ -223,24 +265,17 @@ public final class PackCommand extends BaseCommand {
         return n.isEmpty() || !Character.isLetterOrDigit(n.charAt(0)) ? "input_" + n : n;
     }
 
-    /** The short terminal summary: fund, proposal, minimum variance, binding constraints, where the notebook is. */
+    /**
+     * The short terminal summary: fund, the summary's key points (the same lines as the notebook's summary, so the
+     * terminal and the pack tell one story), the notes a reader must see, where the notebook is, the caution.
+     */
     static String summary(PackContent c, Path out, List<String> warnings) {
-        PackContent.Portfolio p = c.proposal();
-        PackContent.Portfolio min = c.portfolios().get(0);
-        long binding = c.binding().stream().filter(b -> b.portfolio().equals(p.label())).count();
         StringBuilder b = new StringBuilder();
         b.append("Committee pack: ").append(c.heading().fund()).append(", as of ").append(c.heading().asOf()).append('\n');
-        b.append(String.format(Locale.ROOT, "  Proposal (%s): expected return %s, volatility %s, %d binding constraint%s%n",
-                p.label(), Explain.percent(p.expectedReturn()), Explain.percent(p.volatility()), binding,
-                binding == 1 ? "" : "s"));
-        b.append(String.format(Locale.ROOT, "  Minimum variance: expected return %s, volatility %s%n",
-                Explain.percent(min.expectedReturn()), Explain.percent(min.volatility())));
-        c.current().ifPresent(h -> b.append(String.format(Locale.ROOT, "  Current holdings: expected return %s, "
-                + "volatility %s%n", Explain.percent(h.expectedReturn()), Explain.percent(h.volatility()))));
-        c.trading().ifPresent(t -> b.append("  Trades: ").append(t.headline()).append('\n'));
-        boolean pass = c.portfolios().stream().allMatch(PackContent.Portfolio::passes);
-        b.append("  Certificates: ").append(pass ? "every portfolio passes its KKT check"
-                : "WARNING: a KKT certificate is above its tolerance (see the run record)").append('\n');
+        for (PackContent.KeyPoint k : c.keyPoints()) {
+            b.append("  ").append(k.label()).append(": ").append(k.attention() ? "ATTENTION: " : "").append(k.text())
+                    .append('\n');
+        }
         for (String n : c.run().notes()) {
             if (n.equals(Allocator.SHORTS_NOTE) || warnings.contains(n)) {
                 b.append("  Note: ").append(n).append('\n');

@@ -6,6 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.OptionalDouble;
 import java.util.Set;
 import java.util.TreeSet;
 import org.isorisk.cli.options.Decimal;
@@ -13,6 +14,7 @@ import org.isorisk.cli.options.InputOptions;
 import org.isorisk.cli.options.OutputOptions;
 import org.isorisk.cli.options.PolicyOption;
 import org.isorisk.cli.render.RebalanceView;
+import org.isorisk.cli.usecase.FundSize;
 import org.isorisk.engine.error.InputException;
 import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.PortfolioFile;
@@ -96,16 +98,8 @@ public final class RebalanceCommand extends BaseCommand {
         Policy p = pl.policyOrBudget();
         PortfolioFile held = PortfolioReader.read(holdings, "holdings", assets, inputs.units());
         warnings.addAll(held.warnings());
-        double size = fundSize == null ? Double.NaN : fundSize;
-        if (held.marketValue().isPresent()) {
-            double mv = held.marketValue().getAsDouble();
-            if (fundSize != null && Math.abs(mv - fundSize) > Holdings.SUM_TOLERANCE * fundSize) {
-                throw InputException.of(String.format(Locale.ROOT, "the market values add up to %.2f but "
-                                + "--fund-size is %.2f", mv, fundSize)).file(holdings.toString())
-                        .fix("cash is an asset: add the cash balance as a row, or drop --fund-size").build();
-            }
-            size = mv;
-        }
+        double size = FundSize.resolve(held, holdings, fundSize == null ? OptionalDouble.empty()
+                : OptionalDouble.of(fundSize), "--fund-size", "drop --fund-size").orElse(Double.NaN);
         Holdings today;
         try {
             today = Holdings.ofWeights(assets, held.weights(), size);

@@ -16,6 +16,7 @@ import org.isorisk.engine.io.LoadedUniverse;
 import org.isorisk.engine.io.Names;
 import org.isorisk.engine.io.NumberText;
 import org.isorisk.engine.model.AllocationRequest;
+import org.isorisk.engine.model.Branch;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.Method;
 import org.isorisk.engine.model.Objective;
@@ -121,7 +122,9 @@ public final class SolveCommand extends BaseCommand {
     static SolveView run(LoadedUniverse u, Mandate mandate, Objective objective, Method method,
                          Map<String, Double> fixed, String policy, List<String> notes, List<String> warnings) {
         long t0 = System.nanoTime();
-        Solution s = Allocator.solve(new AllocationRequest(u.universe(), mandate, objective, method, null));
+        // a target below the minimum-variance return says it is on the inefficient branch, whatever the method
+        Solution s = Branch.annotated(Allocator.solve(new AllocationRequest(u.universe(), mandate, objective, method,
+                null)));
         double solveMillis = (System.nanoTime() - t0) / 1e6;
         if (!notes.isEmpty()) {
             s = s.withNotes(notes);

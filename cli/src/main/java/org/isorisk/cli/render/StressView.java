@@ -5,6 +5,7 @@ import java.util.List;
 import org.isorisk.cli.json.RebalanceStressJson;
 import org.isorisk.cli.json.ResultJson;
 import org.isorisk.engine.io.Provenance;
+import org.isorisk.engine.model.Branch;
 import org.isorisk.engine.stress.BindingChange;
 import org.isorisk.engine.stress.ScenarioPoint;
 import org.isorisk.engine.stress.ScenarioResult;
@@ -27,9 +28,41 @@ public record StressView(StressResult result, Provenance provenance, List<String
         warnings = List.copyOf(warnings);
     }
 
+    /**
+     * The stress run's notes, then one for each sweep (today's assumptions, then each scenario's) with targets on
+     * the inefficient branch: their marginal risk is negative, which the reader must not take for a bargain.
+     */
+    List<String> notes() {
+        List<String> out = new java.util.ArrayList<>(result.notes());
+        inefficient("Under today's assumptions", result.base()).ifPresent(out::add);
+        for (ScenarioResult s : result.scenarios()) {
+            inefficient("Under scenario " + s.scenario().name(), s.sweep()).ifPresent(out::add);
+        }
+        return out;
+    }
+
+    private static java.util.Optional<String> inefficient(String where, org.isorisk.engine.stress.Sweep sweep) {
+        List<String> at = sweep == null ? List.of() : sweep.points().stream()
+                .filter(p -> p.feasible() && p.solution() != null && Branch.inefficient(p.solution()))
+                .map(p -> Text.pct(p.target())).toList();
+        if (at.isEmpty()) {
+            return java.util.Optional.empty();
+        }
+        return java.util.Optional.of(where + ", " + (at.size() == 1 ? "the target " : "the targets ")
+                + String.join(", ", at) + (at.size() == 1 ? " lies" : " lie") + " below the minimum-variance return, "
+                + "on the inefficient branch of the frontier: the marginal risk is negative there (raising the target "
+                + "lowers the least risk), and another portfolio of the mandate has the same risk with a higher "
+                + "expected return.");
+    }
+
+    private static boolean inefficient(TargetPoint p) {
+        return p.feasible() && p.solution() != null && Branch.inefficient(p.solution());
+    }
+
     @Override
     public ObjectNode json() {
         ObjectNode o = RebalanceStressJson.stress(result);
+        o.set("notes", ResultJson.strings(notes()));
         o.set("warnings", ResultJson.strings(warnings));
         o.set("inputs", ResultJson.provenance(provenance));
         ResultJson.number(o.putObject("timing_ms"), "solve", solveMillis);
@@ -46,7 +79,8 @@ public record StressView(StressResult result, Provenance provenance, List<String
         Text.Table t = new Text.Table("Target", "Min volatility", "Marginal risk ∂σ*/∂m", "Binding");
         for (TargetPoint p : result.base().points()) {
             t.row(Text.pct(p.target()), p.feasible() ? Text.pct(p.volatility()) : "infeasible",
-                    p.feasible() ? Text.fixed4(p.marginalRisk()) : "", p.feasible() ? p.binding().size() + "" : "");
+                    p.feasible() ? Text.fixed4(p.marginalRisk()) + (inefficient(p) ? " (inefficient branch)" : "")
+                            : "", p.feasible() ? p.binding().size() + "" : "");
         }
         b.append(t.render("  "));
         b.append("\nBinding constraints (besides the budget and the target):\n");
@@ -88,7 +122,7 @@ public record StressView(StressResult result, Provenance provenance, List<String
             }
             b.append(u.render("  "));
         }
-        b.append(Sections.bullets("Notes:", result.notes()));
+        b.append(Sections.bullets("Notes:", notes()));
         b.append(Sections.bullets("Warnings:", warnings));
         b.append('\n').append(Text.caution());
         return b.toString();
@@ -98,7 +132,7 @@ public record StressView(StressResult result, Provenance provenance, List<String
     public String csv() {
         return CsvWriter.text(c -> {
             Sections.csvHeader(c, "stress", provenance, warnings);
-            for (String n : result.notes()) {
+            for (String n : notes()) {
                 c.comment("note", n);
             }
             c.row("scenario", "target", "feasible", "min_volatility", "change_vs_base", "base_portfolio_volatility",

@@ -170,37 +170,68 @@ class PackAnalysisTests {
     }
 
     @Test
-    void withoutTradingLimitsTheTradeListIsTheFullMoveAndThePackSaysSo() {
-        // costs alone price trades but restrict none: still the full move
-        for (TradingLimits none : List.of(TradingLimits.none(3), TradingLimits.none(3).withCostBps(new double[]{10, 20, 30}))) {
-            Outcome o = make(limited(Mandate.fullyInvested(3), none));
-            assertTrue(o.results().rebalance().isEmpty());
-            PackContent.Trading t = o.content().trading().orElseThrow();
-            assertEquals(PackContent.Trading.Mode.FULL_MOVE, t.mode());
-            assertTrue(t.headline().startsWith("No trading limit applies"), t.headline());
-            Table trades = o.content().trades().orElseThrow();
-            assertEquals(PackComposer.FULL_MOVE_TITLE, trades.title());
-            double[] w = o.results().proposal().weights();
-            double turnover = 0;
-            for (int i = 0; i < 3; i++) {
-                assertEquals(w[i] - HELD[i], number(trades, i, "change"), 0.0);
-                turnover += Math.abs(w[i] - HELD[i]);
-            }
-            // the comparison: today, then the full move with its two-way turnover Σ|w − w0| (DESIGN.md)
-            Table cmp = t.comparison();
-            assertEquals(2, cmp.rows().size());
-            assertEquals(turnover, number(cmp, 1, "turnover"), 1e-15);
-            assertEquals(org.isorisk.engine.risk.RiskAnalysis.trackingError(universe(), w, HELD).value(),
-                    number(cmp, 1, "tracking_error"), 0.0);
-            assertTrue(t.headline().contains(Explain.percent(turnover)), t.headline());
+    void withoutTradingLimitsOrCostsTheTradeListIsTheFullMoveAndOnePortfolioIsShown() {
+        Outcome o = make(limited(Mandate.fullyInvested(3), TradingLimits.none(3)));
+        RebalanceResult rb = o.results().rebalance().orElseThrow();
+        // the proposal is the rebalancer's post-trade portfolio, which is the target portfolio to the solvers' accuracy
+        assertEquals(rb.proposal(), o.results().proposal());
+        double[] target = o.results().targetPortfolio().weights();
+        for (int i = 0; i < 3; i++) {
+            assertEquals(target[i], rb.proposal().weight(i), PackResults.SAME_WEIGHTS);
         }
+        assertTrue(!o.results().proposalDiffersFromTarget());
+        PackContent.Trading t = o.content().trading().orElseThrow();
+        assertEquals(PackContent.Trading.Mode.FULL_MOVE, t.mode());
+        assertTrue(t.headline().startsWith("No trading limit or cost applies (the policy sets none), so the trade list "
+                + "is the full move from the current holdings to the least-risk portfolio at the 5.00 % target"),
+                t.headline());
+        // one portfolio, labelled by its target, is the proposal; nothing is shown beside it
+        assertEquals("Target 5.00 %", o.content().proposal().label());
+        assertTrue(o.content().besideProposal().isEmpty());
+        assertTrue(o.content().portfolios().stream().noneMatch(p -> p.label().startsWith("Proposed (")));
+        Table trades = o.content().trades().orElseThrow();
+        assertEquals(PackComposer.FULL_MOVE_TITLE, trades.title());
+        double[] w = o.results().proposal().weights();
+        double turnover = 0;
+        for (int i = 0; i < 3; i++) {
+            assertEquals(rb.trades().get(i).trade(), number(trades, i, "change"), 0.0);
+            assertEquals(w[i], number(trades, i, "proposed"), 0.0);
+            turnover += Math.abs(w[i] - HELD[i]);
+        }
+        // the comparison: today, then the full move with its two-way turnover Σ|w − w0| (DESIGN.md)
+        Table cmp = t.comparison();
+        assertEquals(2, cmp.rows().size());
+        assertEquals(turnover, number(cmp, 1, "turnover"), 1e-15);
+        assertEquals(rb.trackingError(), number(cmp, 1, "tracking_error"), 0.0);
+        assertTrue(t.headline().contains(Explain.percent(turnover)), t.headline());
+    }
+
+    @Test
+    void costsAloneKeepTheTradesFromTheTargetPortfolioSoBothAreShownSideBySide() {
+        TradingLimits costs = TradingLimits.none(3).withCostBps(new double[]{10, 20, 30});
+        Outcome o = make(limited(Mandate.fullyInvested(3), costs));
+        RebalanceResult rb = o.results().rebalance().orElseThrow();
+        assertEquals(rb.proposal(), o.results().proposal());
+        assertTrue(o.results().proposalDiffersFromTarget(), "costs are deducted from the return the target must reach");
+        PackContent c = o.content();
+        assertEquals(PackContent.Trading.Mode.WITHIN_LIMITS, c.trading().orElseThrow().mode());
+        assertEquals("Proposed (after trading costs)", c.proposal().label());
+        assertEquals(rb.proposal().volatility(), c.proposal().volatility());
+        PackContent.Portfolio target = c.besideProposal().orElseThrow();
+        assertEquals("Target 5.00 %", target.label());
+        assertEquals("the proposed target before trading costs: the trades do not reach it", target.remark());
+        assertEquals(o.results().targetPortfolio().volatility(), target.volatility());
+        assertEquals(PackComposer.WITHIN_LIMITS_TITLE, c.trades().orElseThrow().title());
+        assertTrue(c.trading().get().reading().startsWith("No trading limit binds here: the proposal differs from the "
+                + "target portfolio because trading costs are deducted"), c.trading().get().reading());
+        assertTrue(c.keyPoints().stream().anyMatch(k -> k.label().equals("Target portfolio, side by side")));
     }
 
     @Test
     void underATurnoverLimitTheTradeListIsTheRebalancersMoveAndStaysWithinIt() {
         Mandate m = longOnly();
         double full = TradingLimits.turnover(HELD, make(limited(m, TradingLimits.none(3))).results()
-                .proposal().weights());
+                .targetPortfolio().weights());
         // The cheapest way to gain 1.40 % of return after costs is Cash into Equity: 5 % more return less 0.40 % of
         // costs per unit, 0.30 each way, two-way turnover 0.61; a limit between that and the full move binds and
         // can be met (hand arithmetic on the invented numbers).
@@ -234,7 +265,8 @@ class PackAnalysisTests {
         assertTrue(direct.proposedNetReturn() >= 0.05 - tol);
         // the comparison shows the full move beside the move within the limit
         Table cmp = t.comparison();
-        assertEquals(List.of(PackComposer.CURRENT, "Full move to the proposal", "Within the trading limits"),
+        assertEquals(List.of(PackComposer.CURRENT, "Full move to the target portfolio (5.00 %)",
+                "Proposed (after trading limits and costs)"), // the turnover limit binds, and costs apply
                 cmp.rows().stream().map(r -> ((Table.Cell.Text) r.get(0)).value()).toList());
         assertEquals(full, number(cmp, 1, "turnover"), 1e-15);
         assertEquals(direct.turnover(), number(cmp, 2, "turnover"), 0.0);
@@ -249,8 +281,13 @@ class PackAnalysisTests {
         assertTrue(t.limits().contains("Turnover (two-way: buys plus sells) at most 70.00 % of the fund."), t.limits().toString());
         assertTrue(t.headline().contains("(limit 70.00 %)"), t.headline());
         assertTrue(t.reading().startsWith("The trading limits bind: keeping to them and paying the costs moves the "
-                + "volatility from " + Explain.percent(number(cmp, 1, "volatility")) + " (the full move) to "
-                + Explain.percent(direct.proposedVolatility())), t.reading());
+                + "volatility from " + Explain.percent(number(cmp, 1, "volatility")) + " (the target portfolio) to "
+                + Explain.percent(direct.proposedVolatility()) + " (the proposal)"), t.reading());
+        // one story: the proposal the pack describes is the portfolio the trades reach
+        assertEquals(direct.proposal().volatility(), o.content().proposal().volatility());
+        for (int i = 0; i < 3; i++) {
+            assertEquals(direct.proposal().weight(i), number(o.content().risk(), i, "weight"), 0.0);
+        }
     }
 
     @Test
@@ -262,17 +299,21 @@ class PackAnalysisTests {
         assertTrue(t.sentences().get(0).startsWith("The turnover limit 190.00 % is not binding"), t.sentences().get(0));
         double fullNet = number(t.comparison(), 1, "return_after_costs");
         assertTrue(fullNet < 0.05, "the full move pays costs out of the target's return");
-        assertEquals("No trading limit binds here: the move differs from the full move because trading costs are "
-                + "deducted from the return the target must reach; the full move would return "
+        assertEquals("No trading limit binds here: the proposal differs from the target portfolio because trading "
+                + "costs are deducted from the return the target must reach; the full move would return "
                 + Explain.percent(fullNet) + " after costs, short of the 5.00 % target.", t.reading());
-        // the same limit without costs: the move within the limits is the full move
+        // the same limit without costs: the move within the limits is the full move, and one portfolio is shown
         Outcome free = make(limited(longOnly(), TradingLimits.none(3).withMaxTurnover(1.9)));
-        double[] full = free.results().proposal().weights();
+        double[] full = free.results().targetPortfolio().weights();
         double[] moved = free.results().rebalance().orElseThrow().proposal().weights();
         for (int i = 0; i < 3; i++) {
             assertEquals(full[i], moved[i], SolverSettings.defaults().numericalTolerance());
         }
-        assertTrue(free.content().trading().orElseThrow().reading().startsWith("No trading limit binds here, so"));
+        PackContent.Trading ft = free.content().trading().orElseThrow();
+        assertEquals(PackContent.Trading.Mode.FULL_MOVE, ft.mode());
+        assertTrue(ft.headline().startsWith("The policy's trading limits do not change the answer here, so the trade "
+                + "list is the full move"), ft.headline());
+        assertTrue(free.content().besideProposal().isEmpty());
     }
 
     @Test

@@ -42,7 +42,7 @@ public final class Explain {
             case "upper" -> "Raising the upper limit of " + c.substring(6) + " by " + percent(step);
             case "lower" -> "Raising the lower limit of " + c.substring(6) + " by " + percent(step);
             case "fixed" -> "Raising the fixed weight of " + c.substring(6) + " by " + percent(step);
-            case "group" -> "Raising " + describe(c) + " by " + percent(step);
+            case "group", "turnover", "trade_limit" -> "Raising " + describe(c) + " by " + percent(step);
             default -> "Raising the limit of " + describe(c) + " by " + percent(step);
         };
         String extra = c.equals("target_return") ? " (the marginal risk of tightening the return target)" : "";
@@ -83,6 +83,12 @@ public final class Explain {
         }
         if (c.startsWith("fixed:")) {
             return "the fixed weight of " + c.substring(6);
+        }
+        if (c.equals("turnover")) {
+            return "the turnover limit";
+        }
+        if (c.startsWith("trade_limit:")) {
+            return "the trade limit of " + c.substring(12);
         }
         return "constraint " + c;
     }

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.isorisk.engine.error.NoSolutionException;
 import org.isorisk.engine.model.AssetUniverse;
+import org.isorisk.engine.model.Branch;
 import org.isorisk.engine.model.Frontier;
 import org.isorisk.engine.model.Mandate;
 import org.isorisk.engine.model.MertonScalars;
@@ -55,7 +56,8 @@ public final class Frontiers {
      * target, in increasing order, is warm-started from the previous solution. There are no corner portfolios
      * ({@link Frontier#corners()} is empty). {@link Grid#points(int)} spaces targets between the minimum-variance
      * return and the highest return the mandate allows (the highest single-asset return times the budget when the
-     * mandate does not bound it). Targets the mandate cannot reach, or that have no solution, are listed in
+     * mandate does not bound it); a grid's target below the minimum-variance return is solved on the inefficient
+     * branch and says so ({@link Branch}). Targets the mandate cannot reach, or that have no solution, are listed in
      * {@link Frontier#rejected()} with the reason.
      *
      * @param universe assets and assumptions (not modified)
@@ -87,7 +89,7 @@ public final class Frontiers {
         for (double t : targets) {
             try {
                 Solution p = session.solve(Objective.targetReturn(t), warm);
-                points.add(p);
+                points.add(Branch.annotated(p)); // a target below the minimum-variance return says so
                 warm = p;
             } catch (NoSolutionException e) {
                 rejected.add(new RejectedTarget(t, e.getMessage()));
@@ -129,9 +131,9 @@ public final class Frontiers {
         java.util.Arrays.sort(targets);
         for (double t : targets) {
             try {
-                points.add(Allocator.closedForm(f, m, Objective.targetReturn(t),
+                points.add(Branch.annotated(Allocator.closedForm(f, m, Objective.targetReturn(t),
                         new org.isorisk.engine.model.AllocationRequest(universe, m, Objective.targetReturn(t),
-                                org.isorisk.engine.model.Method.CLOSED_FORM, s)));
+                                org.isorisk.engine.model.Method.CLOSED_FORM, s))));
             } catch (NoSolutionException e) {
                 rejected.add(new RejectedTarget(t, e.getMessage()));
             }

@@ -125,8 +125,7 @@ public record Frontier(List<Corner> corners, List<Solution> points, MertonScalar
                 + "and %.2f %%; the certificate is the larger of the two corners' residuals.", a.expectedReturn() * 100,
                 b.expectedReturn() * 100));
         if (m < minReturn) {
-            notes.add("This portfolio is on the inefficient branch of the frontier: its return is below that of the "
-                    + "minimum-variance portfolio.");
+            notes.add(Branch.INEFFICIENT_NOTE);
         }
         return new Solution(a.method(), a.assets(), w, ret, var, vol, mult, cert, notes);
     }

@@ -19,8 +19,8 @@ final class Breaches {
 
     /**
      * @param w0     today's weights
-     * @param w      proposed weights
-     * @param trades the trade list, in asset order
+     * @param w      proposed weights; null when there is no proposal (the breaches of today alone)
+     * @param trades the trade list, in asset order; null when there is no proposal
      */
     static List<Breach> find(AssetUniverse u, Mandate m, double[] w0, double[] w, List<Trade> trades) {
         List<Breach> out = new ArrayList<>();
@@ -31,11 +31,11 @@ final class Breaches {
                 continue;
             }
             if (w0[i] > m.upper(i) + TOLERANCE) {
-                out.add(make("upper:" + names.get(i), names.get(i), w0[i], m.upper(i), w[i], List.of(i), -1, trades,
+                out.add(make("upper:" + names.get(i), names.get(i), w0[i], m.upper(i), at(w, i), List.of(i), -1, trades,
                         "above its maximum"));
             }
             if (w0[i] < m.lower(i) - TOLERANCE) {
-                out.add(make("lower:" + names.get(i), names.get(i), w0[i], m.lower(i), w[i], List.of(i), 1, trades,
+                out.add(make("lower:" + names.get(i), names.get(i), w0[i], m.lower(i), at(w, i), List.of(i), 1, trades,
                         "below its minimum"));
             }
         }
@@ -43,13 +43,13 @@ final class Breaches {
             int i = e.getKey();
             double f = e.getValue();
             if (Math.abs(w0[i] - f) > TOLERANCE) {
-                out.add(make("fixed:" + names.get(i), names.get(i), w0[i], f, w[i], List.of(i), w0[i] > f ? -1 : 1,
+                out.add(make("fixed:" + names.get(i), names.get(i), w0[i], f, at(w, i), List.of(i), w0[i] > f ? -1 : 1,
                         trades, "away from its fixed weight"));
             }
         }
         for (Group g : m.groups()) {
             double s0 = sum(g.members(), w0);
-            double s1 = sum(g.members(), w);
+            double s1 = w == null ? Double.NaN : sum(g.members(), w);
             String who = "group " + g.name();
             if (s0 > g.max() + TOLERANCE) {
                 out.add(make(g.min() == g.max() ? "group:" + g.name() : g.maxName(), who, s0, g.max(), s1,
@@ -72,8 +72,9 @@ final class Breaches {
                 }
                 double now = c.evaluate(w0);
                 int dir = now > c.limit() ? -1 : 1;
-                out.add(make(c.name(), "constraint " + c.name(), now, c.limit(), c.evaluate(w), involved, coef, dir,
-                        trades, dir < 0 ? "above its limit" : "below its limit"));
+                out.add(make(c.name(), "constraint " + c.name(), now, c.limit(),
+                        w == null ? Double.NaN : c.evaluate(w), involved, coef, dir, trades,
+                        dir < 0 ? "above its limit" : "below its limit"));
             }
         }
         return out;
@@ -89,7 +90,7 @@ final class Breaches {
                                List<Integer> members, double[] coef, int direction, List<Trade> trades, String how) {
         List<Trade> cures = new ArrayList<>();
         StringBuilder moves = new StringBuilder();
-        for (int i : members) {
+        for (int i : trades == null ? List.<Integer>of() : members) {
             Trade t = trades.get(i);
             double a = coef == null ? 1 : coef[i];
             if (Math.signum(t.trade() * a) == direction) {
@@ -101,11 +102,15 @@ final class Breaches {
                         ? " of " + t.asset() : "");
             }
         }
-        String cure = cures.isEmpty() ? "the proposal trades nothing here (check the trading limits)"
-                : "the proposal trades: " + moves + ", to " + pct(proposed);
-        String d = String.format(Locale.ROOT, "%s is at %s today, %s %s by %s; %s.", capitalise(who), pct(now), how,
+        String cure = trades == null ? "" : cures.isEmpty() ? "; the proposal trades nothing here (check the trading "
+                + "limits)" : "; the proposal trades: " + moves + ", to " + pct(proposed);
+        String d = String.format(Locale.ROOT, "%s is at %s today, %s %s by %s%s.", capitalise(who), pct(now), how,
                 pct(limit), pct(Math.abs(now - limit)), cure);
         return new Breach(constraint, now, limit, Math.abs(now - limit), proposed, cures, d);
+    }
+
+    private static double at(double[] w, int i) {
+        return w == null ? Double.NaN : w[i];
     }
 
     private static double sum(List<Integer> members, double[] w) {

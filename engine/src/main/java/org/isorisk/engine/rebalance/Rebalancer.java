@@ -70,6 +70,20 @@ public final class Rebalancer {
         return run.run();
     }
 
+    /**
+     * The limits of the mandate that today's holdings break, each in a sentence without a cure (e.g. when no move
+     * within the trading limits reaches the target and there is no trade list): the same test and wording as the
+     * breaches of a {@link RebalanceResult}.
+     *
+     * @param current today's weights in the universe's order (not modified), summing to the budget
+     */
+    public static List<Breach> breaches(AssetUniverse u, Mandate m, double[] current) {
+        if (current.length != u.size()) {
+            throw new IllegalArgumentException("the holdings must cover the universe's " + u.size() + " assets");
+        }
+        return Breaches.find(u, m, current.clone(), null, null);
+    }
+
     /** One rebalance: the state of the minimum-trade rule and the objective searches. */
     static final class Run {
         final RebalanceRequest req;
@@ -102,7 +116,9 @@ public final class Rebalancer {
             for (double v : req.holdings().weights()) {
                 held += v;
             }
-            if (held != m.budget()) {
+            // Market values divided by their total add up to the budget only to rounding (1e-16); a note that would
+            // print the same number twice ("1.000000 ... 1.000000") says nothing, so only a visible difference is told.
+            if (Math.abs(held - m.budget()) >= 5e-7) {
                 notes.add(String.format(Locale.ROOT, "The holding weights add up to %.6f; they were rescaled to the "
                         + "budget %.6f (rounding).", held, m.budget()));
             }

@@ -1,6 +1,7 @@
 package org.isorisk.engine.rebalance;
 
 import java.util.Arrays;
+import java.util.List;
 import java.util.Set;
 import java.util.TreeSet;
 import org.isorisk.engine.error.InputException;
@@ -132,6 +133,36 @@ public record TradingLimits(double maxTurnover, double[] maxTrade, double[] cost
             c += cost(i) * Math.abs(to[i] - from[i]);
         }
         return c;
+    }
+
+    /**
+     * The limits a move between two portfolios breaks, by their names in the contract, in this order: {@code turnover}
+     * (two-way turnover above the limit), {@code trade_limit:<asset>} (a trade larger than the asset's limit),
+     * {@code no_trade:<asset>} (a trade in an asset of the no-trade list). A move is beyond a limit when it exceeds
+     * it by more than {@link Rebalancer#ZERO_TRADE} (round-off). The minimum trade size is not a limit a move can
+     * break: a smaller trade is dropped, not refused.
+     *
+     * @param assets the names of the assets, in the order of the weights
+     */
+    public List<String> brokenBy(double[] from, double[] to, List<String> assets) {
+        if (from.length != size() || to.length != size() || assets.size() != size()) {
+            throw new IllegalArgumentException("one weight and one name per asset of the limits");
+        }
+        List<String> out = new java.util.ArrayList<>();
+        if (turnover(from, to) > maxTurnover + Rebalancer.ZERO_TRADE) {
+            out.add("turnover");
+        }
+        for (int i = 0; i < size(); i++) {
+            if (Math.abs(to[i] - from[i]) > maxTrade(i) + Rebalancer.ZERO_TRADE) {
+                out.add("trade_limit:" + assets.get(i));
+            }
+        }
+        for (int i : noTrade) {
+            if (Math.abs(to[i] - from[i]) > Rebalancer.ZERO_TRADE) {
+                out.add("no_trade:" + assets.get(i));
+            }
+        }
+        return out;
     }
 
     /** Number of assets covered. */
